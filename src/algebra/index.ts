@@ -1,0 +1,4 @@
+export * from './complex';
+export * from './rational';
+export * from './poly';
+export * from './rational-function';
