@@ -2,3 +2,5 @@ export * from './complex';
 export * from './rational';
 export * from './poly';
 export * from './rational-function';
+export * from './roots';
+export * from './routh-hurwitz';
