@@ -1,0 +1,51 @@
+/**
+ * Elliptic (Cauer) lowpass prototype: equiripple passband of `rippleDb` with its edge at 1 rad/s,
+ * equiripple stopband at least `attenuationDb` down; even orders have DC gain 10^(-rippleDb/20) (the
+ * normalisation of scipy.signal.ellipap).
+ *
+ * Method: S. J. Orfanidis, "Lecture notes on elliptic filter design" (2006), sec. 3-4 (the same route as
+ * scipy.signal.ellipap; equation numbers below are those of the lecture notes' analog design section):
+ *   k1 = eps / sqrt(10^(A/10) - 1) (discrimination modulus), k from the degree equation (Eq. (49)),
+ *   zeros  j / (k sn(i K / N, k)) for i = N-1, N-3, ... > 0,
+ *   poles  j cd((i/N - j v0) K, k), expanded by the addition theorems [Abramowitz-Stegun 16.17] into
+ *          -(cn dn sn' cn' + j sn dn') / (1 - dn^2 sn'^2), primed functions of (v0 K, k'),
+ *   v0 K = K(k) sc^-1(1/eps, k1') / (N K(k1)).
+ */
+
+import type { Complex } from '../algebra/complex.js';
+import { powerRatioMinusOne } from './chebyshev.js';
+import { completeEllipticK, ellipticDegree, inverseJacobiSc, jacobiElliptic } from './elliptic-functions.js';
+import { conjugateRootSet, type Zpk } from './zpk.js';
+
+export function ellipticPrototype(order: number, rippleDb: number, attenuationDb: number): Zpk {
+  const epsSq = powerRatioMinusOne(rippleDb);
+  const stopSq = powerRatioMinusOne(attenuationDb);
+  const eps = Math.sqrt(epsSq);
+  const k1 = Math.sqrt(epsSq / stopSq);
+  const k1p = Math.sqrt((stopSq - epsSq) / stopSq); // sqrt(1 - k1^2), complement form
+  const { k, kp } = ellipticDegree(order, k1, k1p);
+  const capK = completeEllipticK(k, kp);
+  const v0 = (capK * inverseJacobiSc(1 / eps, k1p, k1)) / (order * completeEllipticK(k1, k1p)); // v0 K
+  const { sn: sv, cn: cv, dn: dv } = jacobiElliptic(v0, kp, k);
+
+  const upperZeros: Complex[] = [];
+  const upperPoles: Complex[] = [];
+  const realPoles: number[] = [];
+  if (order % 2 === 1) realPoles.push(-sv / cv); // i = 0: sn = 0, cn = dn = 1
+  for (let i = 1 + (order % 2); i < order; i += 2) {
+    const { sn: s, cn: c, dn: d } = jacobiElliptic((i * capK) / order, k, kp);
+    upperZeros.push({ re: 0, im: 1 / (k * s) }); // j / (k sn)
+    const ds = d * sv;
+    const den = (1 - ds) * (1 + ds);
+    upperPoles.push({ re: -(c * d * sv * cv) / den, im: (s * dv) / den }); // conj of -(c d sv cv + j s dv)/den
+  }
+
+  // gain = prod(-p)/prod(-z); even orders scaled to H(0) = 1/sqrt(1 + eps^2)
+  let gain = order % 2 === 0 ? 10 ** (-rippleDb / 20) : 1;
+  for (let i = 0; i < upperPoles.length; i++) {
+    const p = upperPoles[i];
+    gain *= (p.re * p.re + p.im * p.im) / (upperZeros[i].im * upperZeros[i].im);
+  }
+  for (const r of realPoles) gain *= -r;
+  return { zeros: conjugateRootSet(upperZeros), poles: conjugateRootSet(upperPoles, realPoles), gain };
+}
