@@ -3,7 +3,8 @@
  * full precision and reports failures instead of returning nonsense.
  */
 import { expect, it } from 'vitest';
-import { describeWithNgspice, parseWrdata, runNgspiceAc, NgspiceRunError } from './ngspice';
+import { parseWrdata, runNgspiceAc, NgspiceRunError } from './ngspice';
+import { describeWithNgspice } from './ngspice-vitest';
 
 it('parseWrdata reads "freq re im" rows and skips a header line', () => {
   const text = ' frequency  real(v(out)) imag(v(out))\n 1.0e+01  9.9e-01 -6.2e-02 \n 2.5e+01 -1.5e-01 0.0e+00\n';

@@ -11,13 +11,12 @@
  * are.
  *
  * When ngspice is not installed the runner reports `{ status: 'missing' }`; tests go through
- * {@link describeWithNgspice}, which skips with a clear message locally and fails when `CI=true`.
+ * `describeWithNgspice` (ngspice-vitest.ts), which skips with a clear message locally and fails when `CI=true`.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { describe, it } from 'vitest';
 
 /** The executable looked up on PATH; NGSPICE may name another one. */
 const NGSPICE = process.env.NGSPICE ?? 'ngspice';
@@ -116,23 +115,4 @@ export function parseWrdata(text: string): AcPoint[] {
     points.push({ frequencyHz: f, re, im });
   }
   return points;
-}
-
-/**
- * `describe` for tests that need ngspice. Installed: runs them. Missing locally: skips the block, the
- * reason in its name. Missing with CI=true: one failing test, because CI must run the cross-check.
- */
-export function describeWithNgspice(name: string, body: () => void): void {
-  const status = ngspiceStatus();
-  if (status.available) {
-    describe(`${name} (reference: ngspice ${status.version})`, body);
-  } else if (process.env.CI === 'true') {
-    describe(name, () => {
-      it('needs ngspice, which CI must install (apt-get install -y ngspice)', () => {
-        throw new Error(`ngspice is not installed but CI=true requires the cross-check: ${status.reason}`);
-      });
-    });
-  } else {
-    describe.skip(`${name} [SKIPPED: ngspice is not installed (${status.reason}); install it with apt-get install -y ngspice]`, body);
-  }
 }
