@@ -70,10 +70,14 @@ export interface OrderEstimate {
 const GOLDEN_STEPS = 200;
 const INV_PHI = (Math.sqrt(5) - 1) / 2;
 
-/** Maximum of a quasi-concave function on [a, b] by golden-section search (J. Kiefer, 1953). */
-function maximiseOn(f: (x: number) => number, a0: number, b0: number): number {
-  let a = a0;
-  let b = b0;
+/**
+ * Where a quasi-concave function is largest between `edge` and `limit` (either order), by golden-section
+ * search (J. Kiefer, "Sequential minimax search for a maximum", Proc. AMS 4 (1953) 502-506). Returns
+ * `edge` itself unless moving away from it helps.
+ */
+function maximiseFrom(f: (x: number) => number, edge: number, limit: number): number {
+  let a = Math.min(edge, limit);
+  let b = Math.max(edge, limit);
   let c = b - INV_PHI * (b - a);
   let d = a + INV_PHI * (b - a);
   let fc = f(c);
@@ -94,7 +98,7 @@ function maximiseOn(f: (x: number) => number, a0: number, b0: number): number {
     }
   }
   const x = (a + b) / 2;
-  return f(a0) >= f(x) ? a0 : x; // keep the mask's own edge unless moving it helps
+  return f(edge) >= f(x) ? edge : x;
 }
 
 /** Bandstop selectivity: min over the stopband edges of B s / |s^2 - w0^2|. */
@@ -118,8 +122,8 @@ function selectivityOf(type: FilterType, pass: number | BandEdgesHz, stop: numbe
     const selectivity = Math.min(...s.map((w) => Math.abs((w * w - centreSq) / (bandwidth * w))));
     return { selectivity, passbandEdgeHz: [p[0], p[1]] };
   }
-  const low = maximiseOn((x) => bandstopSelectivity([x, p[1]], s), p[0], s[0]);
-  const high = maximiseOn((x) => bandstopSelectivity([low, x], s), p[1], s[1]);
+  const low = maximiseFrom((x) => bandstopSelectivity([x, p[1]], s), p[0], s[0]);
+  const high = maximiseFrom((x) => bandstopSelectivity([low, x], s), p[1], s[1]);
   return { selectivity: bandstopSelectivity([low, high], s), passbandEdgeHz: [low, high] };
 }
 
@@ -192,12 +196,13 @@ function besselAttenuationDb(order: number, selectivity: number, rippleDb: numbe
   return -gainDbAt(zpk, selectivity * frequencyAtAttenuation(zpk, rippleDb));
 }
 
-function tooHigh(required: number | string, mask: OrderMask): never {
+/** The mask needs more than {@link MAX_ORDER}; `detail` names the numbers (required order or loss reached). */
+function tooHigh(mask: OrderMask, detail: Record<string, number>, why: string): never {
   throw new UnrealizableError(
     'UNREALIZABLE',
     'order',
-    { requiredOrder: required, maxOrder: MAX_ORDER },
-    `the mask needs a ${mask.family} order of ${required}, above the maximum ${MAX_ORDER}`,
+    { ...detail, maxOrder: MAX_ORDER },
+    `the mask needs a ${mask.family} order above the maximum ${MAX_ORDER}: ${why}`,
   );
 }
 
@@ -223,17 +228,24 @@ export function estimateOrder(mask: OrderMask): OrderEstimate {
 
   const { selectivity, passbandEdgeHz } = selectivityOf(type, pass, stop);
   if (family === 'bessel') {
+    let reached = Number.NaN;
     for (let order = 1; order <= MAX_ORDER; order++) {
-      const reached = besselAttenuationDb(order, selectivity, rippleDb);
+      reached = besselAttenuationDb(order, selectivity, rippleDb);
       if (reached >= attenuationDb) {
         return { order, selectivity, attenuationMarginDb: reached - attenuationDb, passbandEdgeHz };
       }
     }
-    return tooHigh(`more than ${MAX_ORDER}`, mask);
+    return tooHigh(
+      mask,
+      { attenuationAtMaxOrderDb: reached, stopbandAttenuationDb: attenuationDb },
+      `order ${MAX_ORDER} reaches ${reached.toFixed(2)} dB of the ${attenuationDb} dB asked for`,
+    );
   }
   const continuousOrder = continuousOrderOf(family, selectivity, rippleDb, attenuationDb);
   let order = Math.ceil(continuousOrder);
-  if (!(order <= MAX_ORDER)) return tooHigh(order, mask);
+  if (!(order <= MAX_ORDER)) {
+    return tooHigh(mask, { requiredOrder: order, continuousOrder }, `the mask needs order ${order}`);
+  }
   if (family === 'elliptic') order = Math.max(order, MIN_ELLIPTIC_ORDER);
   order = Math.max(order, 1);
   const reached = closedFormAttenuationDb(family, order, selectivity, rippleDb);
