@@ -1,0 +1,3 @@
+export * from './mna-system';
+export * from './exact-solve';
+export * from './transfer-function';
