@@ -1,0 +1,4 @@
+export * from './network';
+export * from './response';
+export * from './frequency';
+export * from './bruton';
