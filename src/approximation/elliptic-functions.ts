@@ -30,6 +30,7 @@ const MAX_AGM_STEPS = 64;
 
 /** Arithmetic-geometric mean of two non-negative numbers [AS 17.6.1]. */
 export function arithmeticGeometricMean(a0: number, b0: number): number {
+  if (a0 === 0 || b0 === 0) return 0;
   let a = a0;
   let b = b0;
   for (let i = 0; i < MAX_AGM_STEPS && Math.abs(a - b) > 2 * Number.EPSILON * a; i++) {

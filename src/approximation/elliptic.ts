@@ -17,6 +17,18 @@ import { powerRatioMinusOne } from './chebyshev.js';
 import { completeEllipticK, ellipticDegree, inverseJacobiSc, jacobiElliptic } from './elliptic-functions.js';
 import { conjugateRootSet, type Zpk } from './zpk.js';
 
+/**
+ * sn, cn, dn at u = i K / N. Past K/2 they come from the reflected argument x = (N - i) K / N, formed
+ * without cancellation, through sn(K - x) = cd(x), cn(K - x) = k' sd(x), dn(K - x) = k' nd(x)
+ * [Abramowitz-Stegun 16.8.1]: cn is small there and would otherwise carry the absolute rounding error of
+ * the AGM phase as a large relative error.
+ */
+function jacobiNearQuarterPeriod(i: number, order: number, capK: number, k: number, kp: number) {
+  if (2 * i <= order) return jacobiElliptic((i * capK) / order, k, kp);
+  const { sn, cn, dn } = jacobiElliptic(((order - i) * capK) / order, k, kp);
+  return { sn: cn / dn, cn: (kp * sn) / dn, dn: kp / dn };
+}
+
 export function ellipticPrototype(order: number, rippleDb: number, attenuationDb: number): Zpk {
   const epsSq = powerRatioMinusOne(rippleDb);
   const stopSq = powerRatioMinusOne(attenuationDb);
@@ -33,7 +45,7 @@ export function ellipticPrototype(order: number, rippleDb: number, attenuationDb
   const realPoles: number[] = [];
   if (order % 2 === 1) realPoles.push(-sv / cv); // i = 0: sn = 0, cn = dn = 1
   for (let i = 1 + (order % 2); i < order; i += 2) {
-    const { sn: s, cn: c, dn: d } = jacobiElliptic((i * capK) / order, k, kp);
+    const { sn: s, cn: c, dn: d } = jacobiNearQuarterPeriod(i, order, capK, k, kp);
     upperZeros.push({ re: 0, im: 1 / (k * s) }); // j / (k sn)
     const ds = d * sv;
     const den = (1 - ds) * (1 + ds);

@@ -1,11 +1,12 @@
 /**
  * lowpassPrototype against scipy.signal's analog prototypes. Expected values: test/fixtures/scipy/
  * prototypes.json, made by scripts/fixtures/approximation.py from scipy.signal.buttap, cheb1ap, cheb2ap,
- * ellipap and besselap (scipy version recorded in the file).
+ * ellipap and besselap (scipy version recorded in the file), and an independent mpmath oracle.
  */
 
 import { describe, expect, it } from 'vitest';
-import { lowpassPrototype, type LowpassPrototypeParams } from '../../src/approximation/index.js';
+import { lowpassPrototype, reverseBesselCoefficients, type LowpassPrototypeParams } from '../../src/approximation/index.js';
+import oracle from '../fixtures/mpmath/elliptic.json';
 import fixture from '../fixtures/scipy/prototypes.json';
 import { rootTolerance, worstRootError, type Pair } from './helpers.js';
 
@@ -43,5 +44,34 @@ describe(`lowpassPrototype matches scipy ${fixture.versions.scipy}`, () => {
     expect(p.error, `poles: ${p.detail}, tolerance ${tolerance}`).toBeLessThanOrEqual(tolerance);
     const gainError = Math.abs(got.gain - gain) / Math.abs(gain);
     expect(gainError, `gain: expected ${gain}, got ${got.gain}, tolerance ${tolerance}`).toBeLessThanOrEqual(tolerance);
+  });
+});
+
+describe('elliptic prototype against an mpmath oracle (60 digits)', () => {
+  // test/fixtures/mpmath/elliptic.json, ellipticPrototypes: the same formulas evaluated in mpmath. For
+  // N = 13..15 at 3 dB / 20 dB (k within 1e-7 of 1) scipy's float64 roots are off by up to 1e-9; ours
+  // hold 1e-13 (the complement forms of elliptic-functions.ts).
+  it.each(oracle.ellipticPrototypes.map((e) => [`N=${e.order} (${e.passbandRippleDb}, ${e.stopbandAttenuationDb})`, e] as const))(
+    '%s',
+    (_name, e) => {
+      const got = lowpassPrototype({ family: 'elliptic', order: e.order, passbandRippleDb: e.passbandRippleDb,
+        stopbandAttenuationDb: e.stopbandAttenuationDb });
+      const z = worstRootError(e.zeros as Pair[], got.zeros);
+      const p = worstRootError(e.poles as Pair[], got.poles);
+      expect(z.error, z.detail).toBeLessThanOrEqual(1e-13);
+      expect(p.error, p.detail).toBeLessThanOrEqual(1e-13);
+      expect(Math.abs(got.gain - e.gain) / e.gain).toBeLessThanOrEqual(1e-13);
+    },
+  );
+});
+
+describe('Bessel delay-normalised poles against mpmath roots of the reverse Bessel polynomial', () => {
+  // test/fixtures/mpmath/elliptic.json, besselDelayRoots: mpmath.polyroots at 60 digits of the exact
+  // integer coefficients, which must equal reverseBesselCoefficients.
+  it.each(oracle.besselDelayRoots.map((e) => [e.order, e] as const))('N=%i', (_n, e) => {
+    expect(reverseBesselCoefficients(e.order).map(String)).toEqual(e.coefficients);
+    const got = lowpassPrototype({ family: 'bessel', order: e.order, normalization: 'delay' });
+    const p = worstRootError(e.roots as Pair[], got.poles);
+    expect(p.error, p.detail).toBeLessThanOrEqual(8 * Number.EPSILON);
   });
 });
