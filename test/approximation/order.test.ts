@@ -143,6 +143,14 @@ describe('Bessel order estimate: the smallest order whose response meets the mas
 });
 
 describe('estimateOrder details', () => {
+  it('runs the @example of estimateOrder and lowpassPrototype', () => {
+    expect(estimateOrder({ type: 'lowpass', family: 'butterworth', passbandEdgeHz: 1000, stopbandEdgeHz: 2000,
+      passbandRippleDb: 3, stopbandAttenuationDb: 40 }).order).toBe(7);
+    const { poles, gain } = lowpassPrototype({ family: 'butterworth', order: 2 });
+    expect(poles.map((p) => [p.re, p.im])).toEqual([[-Math.SQRT1_2, -Math.SQRT1_2], [-Math.SQRT1_2, Math.SQRT1_2]].map(([a, b]) => [expect.closeTo(a, 15), expect.closeTo(b, 15)]));
+    expect(gain).toBe(1);
+  });
+
   it('raises an elliptic estimate of 1 to the lowest elliptic order, 2', () => {
     // A loose mask: scipy.signal.ellipord(1, 10, 3, 10, analog=True) gives 1.
     const e = estimateOrder({ type: 'lowpass', family: 'elliptic', passbandEdgeHz: 1, stopbandEdgeHz: 10,
