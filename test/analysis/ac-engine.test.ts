@@ -1,0 +1,206 @@
+/**
+ * The compiled float AC engine against the exact analysis (the independent oracle: the exact
+ * RationalFunction evaluated at s = j w in exact Gaussian-rational arithmetic, then rounded once), and
+ * its own laws: KCL at every node, value changes equal recompiling, exact-derivative group delay.
+ */
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { fractionFromDouble, fractionToNumber, type RationalFunction } from '../../src/algebra/index';
+import { GicladderError } from '../../src/errors';
+import { Circuit, SingularCircuitError } from '../../src/netlist/index';
+import { compileAc, transferFunction } from '../../src/analysis/index';
+import { capacitor, gicSubcircuit, randomCircuit, resistor, rng } from './random-circuits';
+
+/** H(j w) exactly at the double w = 2 pi f (the same double the engine uses), rounded once to floats. */
+function exactAt(h: RationalFunction, frequencyHz: number): { re: number; im: number } {
+  const w = fractionFromDouble(2 * Math.PI * frequencyHz);
+  const v = h.evaluateGaussian({ re: 0, im: w });
+  return { re: fractionToNumber(v.re), im: fractionToNumber(v.im) };
+}
+
+/**
+ * Relative agreement bound: the float solve is backward stable with a growth-limited pivot order, so
+ * its error is a modest multiple of eps times the condition of the (well-scaled, values near 1) random
+ * systems; 1e-12 is the issue's requirement and leaves about 4500 eps.
+ */
+const REL_TOL = 1e-12;
+
+describe('compileAc agrees with the exact transfer function', () => {
+  it('on random R/L/C/op-amp circuits (all op-amp models), at two nodes each, to 1e-12 relative', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2 ** 31 - 1 }), (seed) => {
+        const { circuit } = randomCircuit(seed, 6);
+        const r = rng(seed ^ 0x5bd1e995);
+        const freqs = Array.from({ length: 5 }, () => 10 ** (-2 + 2 * r()) / (2 * Math.PI) * 10); // about 0.016 .. 1.6 Hz
+        for (const out of [circuit.nodes[1], circuit.nodes[circuit.nodes.length - 1]]) {
+          const h = transferFunction(circuit, { input: 'VIN', output: out });
+          const engine = compileAc(circuit, { input: 'VIN', output: out });
+          for (const f of freqs) {
+            const e = exactAt(h, f);
+            const got = engine.transferAt(f);
+            const err = Math.hypot(got[0] - e.re, got[1] - e.im);
+            const mag = Math.hypot(e.re, e.im);
+            if (!(err <= REL_TOL * mag)) {
+              throw new Error(`seed ${seed} node ${out} f ${f}: got ${got[0]}+j${got[1]}, exact ${e.re}+j${e.im}, rel err ${err / mag}`);
+            }
+          }
+        }
+      }),
+      { numRuns: 30 },
+    );
+  });
+
+  it('solveAt gives every node voltage consistent with the exact per-node transfer functions', () => {
+    const { circuit } = randomCircuit(12345, 8);
+    const engine = compileAc(circuit, { input: 'VIN', output: circuit.nodes[circuit.nodes.length - 1] });
+    const sol = engine.solveAt(0.3);
+    circuit.nodes.forEach((n, i) => {
+      expect(engine.unknowns[i]).toBe(n);
+      const e = exactAt(transferFunction(circuit, { input: 'VIN', output: n }), 0.3);
+      expect(Math.hypot(sol.re[i] - e.re, sol.im[i] - e.im)).toBeLessThanOrEqual(REL_TOL * Math.hypot(e.re, e.im));
+    });
+  });
+
+  it('node-input mode (ratio to a node) and a differential output', () => {
+    const c = new Circuit().addVoltageSource('VIN', 'src', '0').addResistor('RS', 'src', 'in', 1).addResistor('R1', 'in', 'a', 2).addCapacitor('C1', 'a', 'b', 3).addResistor('R2', 'b', '0', 5);
+    for (const spec of [
+      { input: 'in', output: 'b' },
+      { input: 'VIN', output: { plus: 'a', minus: 'b' } },
+      { input: 'in', output: { plus: 'in', minus: 'a' } },
+    ]) {
+      const h = transferFunction(c, spec);
+      const engine = compileAc(c, spec);
+      for (const f of [0.01, 0.05, 0.2]) {
+        const e = exactAt(h, f);
+        const got = engine.transferAt(f);
+        expect(Math.hypot(got[0] - e.re, got[1] - e.im)).toBeLessThanOrEqual(REL_TOL * Math.hypot(e.re, e.im));
+      }
+    }
+  });
+});
+
+describe('engine laws', () => {
+  it('KCL holds at every node of a solved random circuit (float, relative to the largest branch current)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2 ** 31 - 1 }), (seed) => {
+        const { circuit } = randomCircuit(seed, 6);
+        const engine = compileAc(circuit, { input: 'VIN', output: 'n1' });
+        const f = 0.2;
+        const w = 2 * Math.PI * f;
+        const sol = engine.solveAt(f);
+        const idx = new Map(circuit.nodes.map((n, i) => [n, i]));
+        const v = (n: string) => (n === '0' ? [0, 0] : [sol.re[idx.get(n)!], sol.im[idx.get(n)!]]);
+        const sum = new Map<string, [number, number]>();
+        const scale = new Map<string, number>();
+        const skip = new Set<string>();
+        for (const e of circuit.elements) {
+          if (e.kind === 'OPAMP') skip.add(e.out);
+          if (e.kind === 'V') skip.add(e.a);
+          if (e.kind !== 'R' && e.kind !== 'C' && e.kind !== 'L') continue;
+          const [ar, ai] = v(e.a);
+          const [br, bi] = v(e.b);
+          const dr = ar - br;
+          const di = ai - bi;
+          // admittance: 1/R, j w C, 1/(j w L) = -j/(w L)
+          const [yr, yi] = e.kind === 'R' ? [1 / Number(e.ohms.valueOf()), 0] : e.kind === 'C' ? [0, w * Number(e.farads.valueOf())] : [0, -1 / (w * Number(e.henries.valueOf()))];
+          const ir = dr * yr - di * yi;
+          const ii = dr * yi + di * yr;
+          for (const [n, sgn] of [
+            [e.a, 1],
+            [e.b, -1],
+          ] as const) {
+            const s = sum.get(n) ?? [0, 0];
+            sum.set(n, [s[0] + sgn * ir, s[1] + sgn * ii]);
+            scale.set(n, Math.max(scale.get(n) ?? 0, Math.hypot(ir, ii)));
+          }
+        }
+        for (const n of circuit.nodes) {
+          if (skip.has(n) || !sum.has(n)) continue;
+          const [sr, si] = sum.get(n)!;
+          // values are rounded to doubles for the check itself: 1e-12 of the largest current is ample
+          expect(Math.hypot(sr, si)).toBeLessThanOrEqual(1e-12 * scale.get(n)!);
+        }
+      }),
+      { numRuns: 30 },
+    );
+  });
+
+  it('setValue then solving equals compiling the changed circuit; setOpampModel likewise', () => {
+    const build = (r2: number, gbw: number) =>
+      new Circuit()
+        .addVoltageSource('VIN', 'in', '0')
+        .addResistor('R1', 'in', 'm', 1000)
+        .addResistor('R2', 'm', 'out', r2)
+        .addCapacitor('C1', 'm', 'out', 1e-9)
+        .addOpamp('U1', { plus: '0', minus: 'm', out: 'out' }, { model: 'single-pole', gainBandwidthHz: gbw, openLoopGainDb: 100 });
+    const engine = compileAc(build(2200, 1e6), { input: 'VIN', output: 'out' });
+    engine.setValue('R2', 4700);
+    engine.setOpampModel('U1', { model: 'single-pole', gainBandwidthHz: 3e6, openLoopGainDb: 100 });
+    const fresh = compileAc(build(4700, 3e6), { input: 'VIN', output: 'out' });
+    for (const f of [100, 1e4, 1e5, 1e6]) {
+      const a = engine.transferAt(f);
+      const b = fresh.transferAt(f);
+      expect(a[0]).toBe(b[0]);
+      expect(a[1]).toBe(b[1]);
+    }
+    expect(engine.getValue('R2')).toBe(4700);
+    expect(() => engine.setValue('R9', 1)).toThrow(GicladderError);
+    expect(() => engine.setOpampModel('U1', { model: 'ideal' })).toThrow(GicladderError);
+  });
+
+  it('group delay equals the exact derivative of the phase, and phase is unwrapped', () => {
+    // a 4-section RC-ladder-with-followers: phase goes well past -180 degrees
+    const c = new Circuit().addVoltageSource('VIN', 'in', '0');
+    let prev = 'in';
+    for (let k = 1; k <= 4; k++) {
+      c.addResistor(`R${k}`, prev, `a${k}`, 1).addCapacitor(`C${k}`, `a${k}`, '0', 1).addOpamp(`U${k}`, { plus: `a${k}`, minus: `b${k}`, out: `b${k}` });
+      prev = `b${k}`;
+    }
+    const h = transferFunction(c, { input: 'VIN', output: prev }); // 1/(1+s)^4
+    const engine = compileAc(c, { input: 'VIN', output: prev });
+    const freqs = Array.from({ length: 200 }, (_, i) => 10 ** (-3 + (4 * i) / 199));
+    const sw = engine.sweep(freqs);
+    for (let i = 0; i < freqs.length; i++) {
+      const w = 2 * Math.PI * freqs[i];
+      // closed form: phase -4 atan(w), delay 4/(1 + w^2) (circuit theory, no source needed)
+      expect(sw.phaseDeg[i]).toBeCloseTo((-4 * Math.atan(w) * 180) / Math.PI, 9);
+      expect(Math.abs(sw.groupDelayS[i] - 4 / (1 + w * w))).toBeLessThanOrEqual(1e-12 * (4 / (1 + w * w)));
+      expect(Math.abs(sw.groupDelayS[i] - h.groupDelayS(w))).toBeLessThanOrEqual(1e-9 * (4 / (1 + w * w)));
+      expect(sw.gainDb[i]).toBeCloseTo(-80 * Math.log10(Math.hypot(1, w)), 9); // 20 log10 |1/(1 + jw)^4|
+    }
+    expect(sw.phaseDeg[freqs.length - 1]).toBeLessThan(-350);
+    expect(Object.keys(sw.nodes)).toEqual(c.nodes);
+  });
+
+  it('group delay in node-input mode and through a GIC inductor matches the exact function', () => {
+    const c = new Circuit()
+      .addVoltageSource('VIN', 'src', '0')
+      .addResistor('RS', 'src', 'in', 1)
+      .addResistor('R1', 'in', 'out', '1/2')
+      .addCapacitor('C1', 'out', '0', '1/3')
+      .addSubcircuit(gicSubcircuit([resistor('1'), capacitor('1'), resistor('1'), resistor('2'), resistor('1')]), 'X1', { p: 'out' });
+    const h = transferFunction(c, { input: 'in', output: 'out' });
+    const engine = compileAc(c, { input: 'in', output: 'out' });
+    const freqs = [0.05, 0.1, 0.2, 0.3, 0.5];
+    const sw = engine.sweep(freqs, { nodes: ['out'] });
+    freqs.forEach((f, i) => {
+      const w = 2 * Math.PI * f;
+      const tau = h.groupDelayS(w);
+      expect(Math.abs(sw.groupDelayS[i] - tau)).toBeLessThanOrEqual(1e-10 * Math.abs(tau) + 1e-15);
+      const e = exactAt(h, f);
+      expect(sw.nodes.out.re[i]).toBeCloseTo(e.re, 12);
+      expect(sw.nodes.out.im[i]).toBeCloseTo(e.im, 12);
+    });
+  });
+
+  it('returns NaN (does not throw) at a singular frequency, and throws SINGULAR_CIRCUIT at compile for a singular topology', () => {
+    // an integrator model op-amp follower at DC is fine; a capacitor-only node is singular at f = 0
+    const c = new Circuit().addVoltageSource('VIN', 'in', '0').addCapacitor('C1', 'in', 'a', 1).addCapacitor('C2', 'a', '0', 1);
+    const engine = compileAc(c, { input: 'VIN', output: 'a' });
+    expect(engine.transferAt(1)[0]).toBeCloseTo(0.5, 14);
+    const sol = engine.solveAt(0);
+    expect(Number.isNaN(sol.hRe) || !Number.isFinite(sol.hRe)).toBe(true);
+    const bad = new Circuit().addVoltageSource('VIN', 'in', '0').addVoltageSource('V2', 'in', '0');
+    expect(() => compileAc(bad, { input: 'VIN', output: 'in' })).toThrow(SingularCircuitError);
+  });
+});
