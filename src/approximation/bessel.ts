@@ -4,7 +4,7 @@
  * - `'delay'`: the poles are the roots of the reverse Bessel polynomial
  *   theta_N(s) = sum_k (2N - k)! / (2^(N-k) k! (N - k)!) s^k, gain theta_N(0), so H(0) = 1 and the group
  *   delay at DC is 1 s [W. E. Thomson, "Delay networks having maximally flat frequency characteristics",
- *   Proc. IEE 96 (1949) 487-490; Huelsman (1993), sec. 2-7, Eq. (2-7.6)];
+ *   Proc. IEE 96 (1949) 487-490; Huelsman (1993), ch. 2];
  * - `'magnitude'`: scaled so that |H(j)| = 1/sqrt(2) (-3.01 dB at 1 rad/s), found by bisection on the
  *   monotone magnitude;
  * - `'phase'`: scaled by theta_N(0)^(-1/N), so the denominator is monic with constant term 1 and the

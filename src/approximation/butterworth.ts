@@ -3,7 +3,7 @@
  *
  * Poles on the unit circle, p_k = -sin(theta_k) + j cos(theta_k), theta_k = (2k - 1) pi / (2N),
  * k = 1..N [S. Butterworth, "On the theory of filter amplifiers", Wireless Engineer 7 (1930); e.g.
- * L. P. Huelsman, Active and Passive Analog Filter Design (1993), Eq. (2-2.10)]. The real part is taken
+ * L. P. Huelsman, Active and Passive Analog Filter Design (1993), ch. 2]. The real part is taken
  * from the sine so that it keeps its relative accuracy for poles near the j axis.
  */
 

@@ -5,8 +5,8 @@
  *
  * eps^2 = 10^(rippleDb/10) - 1, mu = asinh(1/eps)/N,
  * p_k = -sinh(mu) sin(theta_k) + j cosh(mu) cos(theta_k), theta_k = (2k - 1) pi / (2N)
- * [Huelsman, Active and Passive Analog Filter Design (1993), Eqs. (2-3.15)-(2-3.18); A. I. Zverev,
- * Handbook of Filter Synthesis (1967), ch. 2].
+ * [Huelsman, Active and Passive Analog Filter Design (1993), ch. 2; A. I. Zverev, Handbook of Filter
+ * Synthesis (1967), ch. 2].
  */
 
 import type { Complex } from '../algebra/complex.js';

@@ -5,7 +5,7 @@
  *
  * The poles are the reciprocals of the Chebyshev I poles for eps = 1/sqrt(10^(A/10) - 1), and the zeros
  * are +-j / cos(theta_k), theta_k = (2k - 1) pi / (2N) (the reciprocals of the zeros of T_N)
- * [Huelsman, Active and Passive Analog Filter Design (1993), sec. 2-5; Zverev (1967), ch. 2].
+ * [Huelsman, Active and Passive Analog Filter Design (1993), ch. 2; Zverev (1967), ch. 2].
  */
 
 import type { Complex } from '../algebra/complex.js';

@@ -6,17 +6,17 @@
  * (lowpass omega/omega_p, highpass omega_p/omega, bandpass (omega^2 - omega_0^2)/(B omega), bandstop its
  * reciprocal, with omega_0^2 = product of the passband edges and B their difference), and the more
  * demanding stopband edge after mapping gives the selectivity (the prototype stopband edge when the
- * passband edge is at 1) [Huelsman, Active and Passive Analog Filter Design (1993), sec. 2-8, 7-2;
- * Zverev (1967), ch. 3]. For bandstop masks each passband edge in turn (lower, then upper) is moved towards
+ * passband edge is at 1) [Huelsman, Active and Passive Analog Filter Design (1993), ch. 2 and the
+ * frequency-transformation chapter; Zverev (1967)]. For bandstop masks each passband edge in turn (lower, then upper) is moved towards
  * its stopband edge when that raises the selectivity: a filter with the wider passband still meets the
  * mask, and the geometric centre moves to balance the two stopband edges. This is the same as
  * scipy.signal's *ord functions with analog=True; we maximise the selectivity by golden-section search
  * to full precision, where scipy minimises the real-valued order with xtol = 1e-5.
  *
  * Order formulas, with D = (10^(A/10) - 1)/(10^(R/10) - 1) and selectivity w_s:
- *   Butterworth  log(D) / (2 log w_s)                [Huelsman Eq. (2-2.13)]
- *   Chebyshev I and II  acosh(sqrt D) / acosh(w_s)   [Huelsman Eq. (2-3.22)]
- *   elliptic  K(k) K'(k1) / (K'(k) K(k1)), k = 1/w_s, k1 = 1/sqrt(D)   [Orfanidis (2006), Eq. (49)]
+ *   Butterworth  log(D) / (2 log w_s)
+ *   Chebyshev I and II  acosh(sqrt D) / acosh(w_s)
+ *   elliptic  K(k) K'(k1) / (K'(k) K(k1)), k = 1/w_s, k1 = 1/sqrt(D)   [the degree equation, Orfanidis (2006)]
  *   Bessel  no closed form: the smallest N whose delay-normalised response, scaled so that its loss at
  *           the passband edge is exactly `passbandRippleDb`, has at least `stopbandAttenuationDb` at the
  *           selectivity. (The Bessel magnitude is monotone, so that scaling is the best one.)
