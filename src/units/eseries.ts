@@ -13,8 +13,9 @@
  * Rounding rule of {@link nearestPreferred}: nearest on a logarithmic scale. Between neighbours a < b the
  * boundary is the geometric midpoint sqrt(a*b), decided exactly as x^2 against a*b in rationals. A tie
  * (x^2 = a*b exactly) goes to the larger value: the log-domain counterpart of round-half-up, which keeps
- * the map monotone and deterministic; preferring the larger part also means a tie never lowers a
- * capacitor below the value a design asked for (common practice, no source).
+ * the map monotone and deterministic. For the published tables the rule is moot, since no adjacent
+ * pair has a*b a rational square, so sqrt(a*b) is irrational and no rational input ties (the tests
+ * check this); it is stated so that the behaviour is defined should a table ever allow a tie.
  */
 import { InvalidInputError, requireOneOf, requirePositive } from '../errors';
 import { parseQuantityExact } from './parse';
