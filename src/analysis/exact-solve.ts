@@ -20,18 +20,29 @@
  * observed combination is kept last, so after n - 1 steps the last row reads a x_t = b and
  * x_t = b / a (the common lazy scale cancels).
  */
-import { Fraction, Poly, Q0, RationalFunction } from '../algebra/index';
+import { Fraction, Q0, RationalFunction } from '../algebra/index';
 import type { Combination, MnaProblem } from './mna-system';
 import { ipContent, ipCost, ipExactDiv, ipMul, ipSub, ipTrim, type IntPoly } from './int-poly';
+import { reduceToRational } from './reduce-rational';
 
 /** The exact result, or the unknowns left without a pivot when the matrix is singular. */
 export type ExactSolveResult = { readonly ok: true; readonly value: RationalFunction } | { readonly ok: false; readonly unpivoted: readonly string[] };
 
 /** c.x for the problem's right-hand side, exactly. Never throws for a singular matrix (reports it). */
 export function solveCombinationExact(problem: MnaProblem, combination: Combination): ExactSolveResult {
+  if (combination.length === 0) return { ok: true, value: RationalFunction.ZERO };
+  const r = eliminateExact(problem, combination);
+  return r.ok ? { ok: true, value: reduceToRational(r.num, r.den) } : r;
+}
+
+/** c.x = num/den as unreduced integer polynomials (den is the determinant up to a constant factor). */
+export function eliminateExact(
+  problem: MnaProblem,
+  combination: Combination,
+): { readonly ok: true; readonly num: IntPoly; readonly den: IntPoly } | { readonly ok: false; readonly unpivoted: readonly string[] } {
   const { system } = problem;
   const n = system.size;
-  if (combination.length === 0) return { ok: true, value: RationalFunction.ZERO };
+  if (combination.length === 0) return { ok: true, num: [], den: [1n] };
 
   // 1. The matrix over Q[s] (dense storage of sparse rows), with the RHS as column n.
   const cols = n + 1;
@@ -154,18 +165,7 @@ export function solveCombinationExact(problem: MnaProblem, combination: Combinat
   for (let i = 0; i < n; i++) if (rowActive[i]) last = i;
   const den = a[last][t];
   if (!den) return { ok: false, unpivoted: [system.unknowns[t]] };
-  const num = a[last][n] ?? [];
-  return { ok: true, value: toRational(num, den) };
-}
-
-/** num/den as a reduced RationalFunction; contents are split off first so the polynomial gcd works on primitive parts. */
-export function toRational(num: IntPoly, den: IntPoly): RationalFunction {
-  if (num.length === 0) return RationalFunction.ZERO;
-  const cn = ipContent(num);
-  const cd = ipContent(den);
-  const pn = Poly.fromCoefficients(num.map((x) => x / cn));
-  const pd = Poly.fromCoefficients(den.map((x) => x / cd));
-  return RationalFunction.fromPolys(pn, pd).scale(new Fraction(cn, cd));
+  return { ok: true, num: a[last][n] ?? [], den };
 }
 
 function addTo(q: (Fraction[] | null)[][], row: number, col: number, power: number, c: Fraction): void {
