@@ -1,0 +1,5 @@
+export * from './opamp-model';
+export * from './component-value';
+export * from './impedances';
+export * from './gic';
+export * from './configurations';
