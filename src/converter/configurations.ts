@@ -30,7 +30,8 @@ import { Fraction, Q1, type RationalLike } from '../algebra/rational';
 import { RationalFunction } from '../algebra/rational-function';
 import { toPositiveValue } from './component-value';
 import { capacitorImpedance, elementImpedance, resistorImpedance, type ElementKind } from './impedances';
-import { GIC_POSITIONS, type GicImpedances, type GicPosition } from './gic';
+import { GIC_POSITIONS, type GicPosition } from './gic';
+import type { GicImpedances } from './gic-nonideal';
 
 export type GicConfiguration =
   | 'inductor-c2'

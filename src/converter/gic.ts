@@ -10,57 +10,42 @@
  * V1 = V3 = V5 = V. KCL at node 5 gives V4 = V (1 + Z4/Z5); at node 3, (V2 - V)/Z2 = -(V4 - V)/Z3;
  * the port current is (V - V2)/Z1 = V Z2 Z4 / (Z1 Z3 Z5). Any two different input pairs from
  * {1, 3, 5} tie the same three nodes, so with ideal op-amps the result does not depend on `inputs`
- * (the polarity matters for stability with real op-amps, which the circuit engine analyses).
+ * (the polarity matters for stability with real op-amps).
+ *
+ * Non-ideal op-amps: {@link gicImpedance} hands the circuit to ./gic-nonideal, which builds the GIC as a
+ * netlist and solves it by exact nodal analysis (src/analysis). The types GicImpedances, GicInputs and
+ * DEFAULT_GIC_INPUTS are defined there and shared.
  */
 import { ArithmeticError, InvalidInputError } from '../errors';
 import { RationalFunction } from '../algebra/rational-function';
 import { validateOpampModel, type OpampModel } from './opamp-model';
-
-/** The five impedances of the GIC, in chain order from the port. */
-export interface GicImpedances {
-  z1: RationalFunction;
-  z2: RationalFunction;
-  z3: RationalFunction;
-  z4: RationalFunction;
-  z5: RationalFunction;
-}
-
-/** A node an op-amp input may sense: the nodes not driven by an op-amp output. */
-export type GicInputNode = 1 | 3 | 5;
-
-export interface GicInputs {
-  a: { plus: GicInputNode; minus: GicInputNode };
-  b: { plus: GicInputNode; minus: GicInputNode };
-}
+import { DEFAULT_GIC_INPUTS, gicImpedanceNonideal, type GicImpedances, type GicInputNode, type GicInputs } from './gic-nonideal';
 
 export interface GicOptions {
   /** Default ideal; one model for both op-amps, or [a, b] when they differ. */
   opamps?: OpampModel | [OpampModel, OpampModel];
-  /** Default: a + on 5, - on 3; b + on 1, - on 3 (Antoniou's stable arrangement). */
+  /** Default: a + on 5, - on 3; b + on 1, - on 3 (DEFAULT_GIC_INPUTS). */
   inputs?: GicInputs;
 }
-
-export const DEFAULT_GIC_INPUTS: Readonly<GicInputs> = Object.freeze({
-  a: Object.freeze({ plus: 5, minus: 3 }),
-  b: Object.freeze({ plus: 1, minus: 3 }),
-}) as Readonly<GicInputs>;
 
 export const GIC_POSITIONS = Object.freeze(['z1', 'z2', 'z3', 'z4', 'z5'] as const);
 export type GicPosition = (typeof GIC_POSITIONS)[number];
 
 /**
  * The input impedance of the GIC, exact. Validates its arguments (InvalidInputError with path 'z.z1'...
- * or 'options...'); throws ArithmeticError 'DIVISION_BY_ZERO' when Z2 or Z4 is zero. With non-ideal
- * op-amps it throws InvalidInputError 'INVALID_ARGUMENT': that analysis is exact nodal analysis and lives
- * in the circuit engine (src/analysis), which will replace {@link nonIdealGicImpedance}.
+ * or 'options...'). Ideal op-amps (the default): {@link idealGicImpedance}, throwing ArithmeticError
+ * 'DIVISION_BY_ZERO' when Z2 or Z4 is zero and InvalidInputError when both op-amps sense the same node
+ * pair. Otherwise exact nodal analysis of the circuit with the op-amp models ({@link nonIdealGicImpedance}).
  *
- * @example gicImpedance({ z1: R, z2: capacitorImpedance('10n'), z3: R, z4: R, z5: R }) // s * 10n * R^2
+ * @example
+ * const r = resistorImpedance(1000);
+ * gicImpedance({ z1: r, z2: r, z3: r, z4: capacitorImpedance('10n'), z5: r }).toString(); // '1/100*s' (10 mH)
  */
 export function gicImpedance(z: GicImpedances, options: GicOptions = {}): RationalFunction {
   const zs = validateGicImpedances(z, 'z');
   if (typeof options !== 'object' || options === null) throw new InvalidInputError('INVALID_ARGUMENT', 'options', options, 'must be an object');
   const models = validateOpamps(options.opamps);
-  const inputs = validateGicInputs(options.inputs ?? DEFAULT_GIC_INPUTS, 'options.inputs');
+  const inputs = validateGicInputs(options.inputs ?? DEFAULT_GIC_INPUTS, 'options.inputs', models.every((m) => m.model === 'ideal'));
   if (models.every((m) => m.model === 'ideal')) return idealGicImpedance(zs);
   return nonIdealGicImpedance(zs, models, inputs);
 }
@@ -76,17 +61,12 @@ export function idealGicImpedance(z: GicImpedances): RationalFunction {
 }
 
 /**
- * The GIC with non-ideal op-amps: not computed here. Exact nodal analysis with op-amp gain models is the
- * circuit engine's work (src/analysis); until it is wired in, this throws InvalidInputError
- * 'INVALID_ARGUMENT' at 'options.opamps' so that no caller mistakes the ideal identity for it.
+ * The GIC with non-ideal op-amps, exact: delegates to the circuit engine's exact nodal analysis
+ * (./gic-nonideal, gicImpedanceNonideal), which throws UnrealizableError for an impedance with no
+ * R/L/C/FDNR element form and SingularCircuitError for a singular input assignment.
  */
-export function nonIdealGicImpedance(_z: GicImpedances, models: readonly OpampModel[], _inputs: GicInputs): RationalFunction {
-  throw new InvalidInputError(
-    'INVALID_ARGUMENT',
-    'options.opamps',
-    models,
-    'non-ideal op-amp analysis of the GIC lives in the circuit engine (src/analysis); gicImpedance computes the ideal identity only',
-  );
+export function nonIdealGicImpedance(z: GicImpedances, models: readonly [OpampModel, OpampModel], inputs: GicInputs): RationalFunction {
+  return gicImpedanceNonideal(z, { opamps: [models[0], models[1]], inputs });
 }
 
 /** Checks the five impedances; returns them as a fresh record. */
@@ -99,7 +79,7 @@ export function validateGicImpedances(z: unknown, path: string): GicImpedances {
   return { z1: r.z1, z2: r.z2, z3: r.z3, z4: r.z4, z5: r.z5 } as GicImpedances;
 }
 
-function validateOpamps(opamps: unknown): OpampModel[] {
+function validateOpamps(opamps: unknown): [OpampModel, OpampModel] {
   if (opamps === undefined) return [{ model: 'ideal' }, { model: 'ideal' }];
   if (Array.isArray(opamps)) {
     if (opamps.length !== 2) throw new InvalidInputError('INVALID_ARGUMENT', 'options.opamps', opamps, 'must be one model or a pair [a, b]');
@@ -110,11 +90,12 @@ function validateOpamps(opamps: unknown): OpampModel[] {
 }
 
 /**
- * Checks op-amp input connections: each input on node 1, 3 or 5, plus and minus different, and the two
- * op-amps on different node pairs (the same pair twice would leave the third node undetermined: the
- * circuit would be singular).
+ * Checks op-amp input connections: each input on node 1, 3 or 5 and plus and minus different. With
+ * `ideal` set, also the two op-amps on different node pairs: two nullators across the same pair leave
+ * the third node undetermined (the circuit is singular). With finite gains that case may be solvable,
+ * so it is left to the nodal analysis.
  */
-export function validateGicInputs(inputs: unknown, path: string): GicInputs {
+export function validateGicInputs(inputs: unknown, path: string, ideal = true): GicInputs {
   if (typeof inputs !== 'object' || inputs === null) throw new InvalidInputError('INVALID_ARGUMENT', path, inputs, 'must be { a: { plus, minus }, b: { plus, minus } }');
   const r = inputs as Record<string, unknown>;
   const pair = (name: 'a' | 'b'): { plus: GicInputNode; minus: GicInputNode } => {
@@ -130,6 +111,6 @@ export function validateGicInputs(inputs: unknown, path: string): GicInputs {
   const a = pair('a');
   const b = pair('b');
   const same = (a.plus === b.plus && a.minus === b.minus) || (a.plus === b.minus && a.minus === b.plus);
-  if (same) throw new InvalidInputError('INVALID_ARGUMENT', path, inputs, 'both op-amps sense the same node pair; the circuit would be singular');
+  if (same && ideal) throw new InvalidInputError('INVALID_ARGUMENT', path, inputs, 'both op-amps sense the same node pair; the circuit would be singular');
   return { a, b };
 }
