@@ -99,18 +99,27 @@ class AcEngine implements CompiledAc {
   private readonly n: number;
   private readonly nameIndex: Map<string, number>;
   private readonly plan: SparseLuPlan;
-  // terms
-  private readonly tSlot: Int32Array;
-  private readonly tRow: Int32Array;
-  private readonly tCol: Int32Array;
-  private readonly tPow: Int32Array;
+  // terms: coefficient * prod(parameter^exponent), cached per term
   private readonly tCoef: Float64Array;
   private readonly tWeight: Float64Array;
   private readonly tFactorStart: Int32Array;
   private readonly fSlot: Int32Array;
   private readonly fExp: Int32Array;
+  private readonly tGroup: Int32Array;
+  // groups: the terms sharing a matrix slot and a power of s, summed; sorted by (power mod 4, slot)
+  private readonly gSlot: Int32Array;
+  private readonly gRow: Int32Array;
+  private readonly gCol: Int32Array;
+  private readonly gPow: Int32Array;
+  private readonly gWeight: Float64Array;
+  private readonly gTermStart: Int32Array;
+  private readonly gTerms: Int32Array;
+  /** Group index ranges of the four classes of j^k: [cls[c], cls[c + 1]). */
+  private readonly cls: Int32Array;
+  // parameter -> the terms it enters
+  private readonly pTermStart: Int32Array;
+  private readonly pTerms: Int32Array;
   private readonly maxPow: number;
-  private weightsDirty = true;
   // right-hand side and combinations
   private readonly bRow: Int32Array;
   private readonly bVal: Float64Array;
@@ -147,26 +156,57 @@ class AcEngine implements CompiledAc {
 
     const terms = sys.terms;
     const nt = terms.length;
-    this.tRow = Int32Array.from(terms.map((t) => t.row));
-    this.tCol = Int32Array.from(terms.map((t) => t.col));
-    this.tPow = Int32Array.from(terms.map((t) => t.sPower));
     this.tCoef = Float64Array.from(terms.map((t) => t.coefficient));
     this.tWeight = new Float64Array(nt);
     const fs: number[] = [];
     const fe: number[] = [];
     const starts: number[] = [0];
-    for (const t of terms) {
+    const byParam: number[][] = sys.parameterNames.map(() => []);
+    terms.forEach((t, i) => {
       for (const f of t.factors) {
         fs.push(f.slot);
         fe.push(f.exponent);
+        if (!byParam[f.slot].includes(i)) byParam[f.slot].push(i);
       }
       starts.push(fs.length);
-    }
+    });
     this.fSlot = Int32Array.from(fs);
     this.fExp = Int32Array.from(fe);
     this.tFactorStart = Int32Array.from(starts);
+    this.pTermStart = Int32Array.from([0, ...cumulative(byParam.map((l) => l.length))]);
+    this.pTerms = Int32Array.from(byParam.flat());
     this.maxPow = terms.reduce((m, t) => Math.max(m, t.sPower), 0);
     this.wPow = new Float64Array(this.maxPow + 2);
+    // groups keyed by (row, col, power)
+    const key = (t: { row: number; col: number; sPower: number }) => (t.row * n + t.col) * (this.maxPow + 1) + t.sPower;
+    const groupOf = new Map<number, number[]>();
+    terms.forEach((t, i) => {
+      const k = key(t);
+      if (!groupOf.has(k)) groupOf.set(k, []);
+      groupOf.get(k)!.push(i);
+    });
+    const groupList = [...groupOf.values()].sort((a, b) => {
+      const ta = terms[a[0]];
+      const tb = terms[b[0]];
+      return (ta.sPower & 3) - (tb.sPower & 3) || ta.row * n + ta.col - (tb.row * n + tb.col) || ta.sPower - tb.sPower;
+    });
+    const ng = groupList.length;
+    this.gRow = Int32Array.from(groupList.map((g) => terms[g[0]].row));
+    this.gCol = Int32Array.from(groupList.map((g) => terms[g[0]].col));
+    this.gPow = Int32Array.from(groupList.map((g) => terms[g[0]].sPower));
+    this.gWeight = new Float64Array(ng);
+    this.gTermStart = Int32Array.from([0, ...cumulative(groupList.map((g) => g.length))]);
+    this.gTerms = Int32Array.from(groupList.flat());
+    this.tGroup = new Int32Array(nt);
+    groupList.forEach((g, gi) => g.forEach((t) => (this.tGroup[t] = gi)));
+    this.cls = new Int32Array(5);
+    for (let c = 0; c <= 4; c++) {
+      let i = 0;
+      while (i < ng && (this.gPow[i] & 3) < c) i++;
+      this.cls[c] = i;
+    }
+    for (let t = 0; t < nt; t++) this.updateTerm(t);
+    for (let g = 0; g < ng; g++) this.updateGroup(g);
 
     this.bRow = Int32Array.from(problem.rhs.map((r) => r.row));
     this.bVal = Float64Array.from(problem.rhs.map((r) => fractionToNumber(r.value)));
@@ -177,16 +217,15 @@ class AcEngine implements CompiledAc {
     this.refW = Float64Array.from(ref.map((c) => c.weight));
 
     // Structure and sample matrices for the ordering.
-    const keys = terms.map((t) => t.row * n + t.col);
-    this.refreshWeights();
+    const keys = Array.from(this.gRow, (r, g) => r * n + this.gCol[g]);
     const samples: ComplexSample[] = checkHz.map((f) => {
       const re = new Float64Array(n * n);
       const im = new Float64Array(n * n);
       const w = 2 * Math.PI * f;
-      for (let t = 0; t < nt; t++) {
-        const [cr, ci] = jwPower(w, this.tPow[t]);
-        re[keys[t]] += this.tWeight[t] * cr;
-        im[keys[t]] += this.tWeight[t] * ci;
+      for (let g = 0; g < ng; g++) {
+        const [cr, ci] = jwPower(w, this.gPow[g]);
+        re[keys[g]] += this.gWeight[g] * cr;
+        im[keys[g]] += this.gWeight[g] * ci;
       }
       return { re, im };
     });
@@ -196,7 +235,7 @@ class AcEngine implements CompiledAc {
       throw new SingularCircuitError('circuit', [], `the nodal equations are singular (no pivot left for ${names.map((u) => `'${u}'`).join(', ')})`);
     }
     this.plan = planned.plan;
-    this.tSlot = Int32Array.from(keys.map((k) => this.plan.slotOf[k]));
+    this.gSlot = Int32Array.from(keys.map((k) => this.plan.slotOf[k]));
     this.vr = new Float64Array(this.plan.slotCount);
     this.vi = new Float64Array(this.plan.slotCount);
     this.invRe = new Float64Array(n);
@@ -221,7 +260,11 @@ class AcEngine implements CompiledAc {
 
   setParameter(index: number, value: number): void {
     this.parameters[index] = value;
-    this.weightsDirty = true;
+    for (let i = this.pTermStart[index]; i < this.pTermStart[index + 1]; i++) {
+      const t = this.pTerms[i];
+      this.updateTerm(t);
+      this.updateGroup(this.tGroup[t]);
+    }
   }
 
   getValue(name: string): number {
@@ -244,46 +287,37 @@ class AcEngine implements CompiledAc {
     return { re: new Float64Array(this.n), im: new Float64Array(this.n), hRe: NaN, hIm: NaN };
   }
 
-  private refreshWeights(): void {
+  /** Recomputes one term's weight from the parameters. */
+  private updateTerm(t: number): void {
     const p = this.parameters;
-    for (let t = 0; t < this.tWeight.length; t++) {
-      let w = this.tCoef[t];
-      for (let f = this.tFactorStart[t]; f < this.tFactorStart[t + 1]; f++) {
-        const e = this.fExp[f];
-        const v = p[this.fSlot[f]];
-        w = e === 1 ? w * v : e === -1 ? w / v : w * v ** e;
-      }
-      this.tWeight[t] = w;
+    let w = this.tCoef[t];
+    for (let f = this.tFactorStart[t]; f < this.tFactorStart[t + 1]; f++) {
+      const e = this.fExp[f];
+      const v = p[this.fSlot[f]];
+      w = e === 1 ? w * v : e === -1 ? w / v : w * v ** e;
     }
-    this.weightsDirty = false;
+    this.tWeight[t] = w;
+  }
+
+  /** Re-sums one group from its terms (summed afresh, so repeated changes do not drift). */
+  private updateGroup(g: number): void {
+    let w = 0;
+    for (let i = this.gTermStart[g]; i < this.gTermStart[g + 1]; i++) w += this.tWeight[this.gTerms[i]];
+    this.gWeight[g] = w;
   }
 
   /** Fills and factorises A(j w); returns false at a singular point. */
   private factorAt(w: number): boolean {
-    if (this.weightsDirty) this.refreshWeights();
-    const { vr, vi, wPow, tSlot, tPow, tWeight } = this;
+    const { vr, vi, wPow, gSlot, gPow, gWeight, cls } = this;
     vr.fill(0);
     vi.fill(0);
     wPow[0] = 1;
     for (let k = 1; k < wPow.length; k++) wPow[k] = wPow[k - 1] * w;
-    for (let t = 0; t < tSlot.length; t++) {
-      const k = tPow[t];
-      const v = tWeight[t] * wPow[k];
-      const s = tSlot[t];
-      switch (k & 3) {
-        case 0:
-          vr[s] += v;
-          break;
-        case 1:
-          vi[s] += v;
-          break;
-        case 2:
-          vr[s] -= v;
-          break;
-        default:
-          vi[s] -= v;
-      }
-    }
+    // (j w)^k = w^k j^k, j^k = 1, j, -1, -j by k mod 4
+    for (let g = cls[0]; g < cls[1]; g++) vr[gSlot[g]] += gWeight[g] * wPow[gPow[g]];
+    for (let g = cls[1]; g < cls[2]; g++) vi[gSlot[g]] += gWeight[g] * wPow[gPow[g]];
+    for (let g = cls[2]; g < cls[3]; g++) vr[gSlot[g]] -= gWeight[g] * wPow[gPow[g]];
+    for (let g = cls[3]; g < cls[4]; g++) vi[gSlot[g]] -= gWeight[g] * wPow[gPow[g]];
     return factorSparseLu(this.plan, vr, vi, this.invRe, this.invIm);
   }
 
@@ -298,15 +332,15 @@ class AcEngine implements CompiledAc {
 
   /** dx/dw = -A^-1 (dA/dw) x into dr/di (after solveRhs). d/dw of w^k j^k is k w^(k-1) j^k. */
   private solveDerivative(): void {
-    const { br, bi, xr, xi, wPow, tRow, tCol, tPow, tWeight } = this;
+    const { br, bi, xr, xi, wPow, gRow, gCol, gPow, gWeight } = this;
     br.fill(0);
     bi.fill(0);
-    for (let t = 0; t < tRow.length; t++) {
-      const k = tPow[t];
+    for (let g = 0; g < gRow.length; g++) {
+      const k = gPow[g];
       if (k === 0) continue;
-      const d = k * tWeight[t] * wPow[k - 1]; // times j^k
-      const c = tCol[t];
-      const r = tRow[t];
+      const d = k * gWeight[g] * wPow[k - 1]; // times j^k
+      const c = gCol[g];
+      const r = gRow[g];
       // y_r += d j^k x_c, with the right-hand side -y
       switch (k & 3) {
         case 0:
@@ -442,6 +476,11 @@ class AcEngine implements CompiledAc {
     }
     return { frequencyHz, gainDb, phaseDeg, groupDelayS, nodes };
   }
+}
+
+function cumulative(xs: readonly number[]): number[] {
+  let acc = 0;
+  return xs.map((x) => (acc += x));
 }
 
 /** (j w)^k as [re, im]. */

@@ -230,7 +230,7 @@ export function factorSparseLu(p: SparseLuPlan, vr: Float64Array, vi: Float64Arr
       ir = t / d;
       ii = -1 / d;
     }
-    if (!Number.isFinite(ir) || !Number.isFinite(ii)) ok = false;
+    if (ir - ir !== 0 || ii - ii !== 0) ok = false; // NaN or Infinity (x - x is 0 only for finite x)
     invRe[k] = ir;
     invIm[k] = ii;
     const u0 = uStart[k];
