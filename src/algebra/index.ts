@@ -1,5 +1,6 @@
 export * from './complex';
 export * from './rational';
+export * from './integer-poly';
 export * from './poly';
 export * from './rational-function';
 export * from './roots';
