@@ -165,8 +165,20 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     return { re, im };
   };
 
-  const flat = new Float64Array(sections.length * 6);
-  sections.forEach((q, i) => flat.set([q.n0, q.n1, q.n2, q.d0, q.d1, q.d2], i * 6));
+  // The sweep evaluates numerator and denominator factors apart (one complex division per point);
+  // factors equal to 1 are dropped and numerator factors with no s term (zeros on the j w axis) are
+  // real at s = j w, so they cost two multiplications.
+  const cplxNum: number[] = [];
+  const realNum: number[] = [];
+  const dens: number[] = [];
+  for (const q of sections) {
+    if (q.n1 !== 0) cplxNum.push(q.n0, q.n1, q.n2);
+    else if (q.n2 !== 0 || q.n0 !== 1) realNum.push(q.n0, q.n2);
+    if (q.d1 !== 0 || q.d2 !== 0 || q.d0 !== 1) dens.push(q.d0, q.d1, q.d2);
+  }
+  const cn = Float64Array.from(cplxNum);
+  const rn = Float64Array.from(realNum);
+  const dn = Float64Array.from(dens);
   const sweep = (frequenciesHz: ArrayLike<number>, options: { readonly groupDelay?: boolean } = {}): FactoredSweep => {
     const m = frequenciesHz.length;
     const frequencyHz = Float64Array.from(frequenciesHz);
@@ -174,52 +186,101 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     const phaseDeg = new Float64Array(m);
     const groupDelayS = new Float64Array(m);
     const withDelay = options.groupDelay ?? true;
-    const ns = sections.length;
-    const base = sectionGain < 0 ? Math.PI : 0;
-    const logGain = Math.log10(Math.abs(sectionGain));
-    let prev = NaN;
-    let offset = 0;
-    for (let p = 0; p < m; p++) {
-      const w = 2 * Math.PI * frequencyHz[p];
-      const w2 = w * w;
-      // H = g * prod N_k conj(D_k) / prod |D_k|^2; the sections are unit-scaled, so the products stay in range
-      let pr = 1;
-      let pi = 0;
-      let q = 1;
-      let tau = 0;
-      for (let k = 0, o = 0; k < ns; k++, o += 6) {
-        const n1w = flat[o + 1] * w;
-        const nx = flat[o] - flat[o + 2] * w2; // N(jw) = nx + j ny
-        const d1w = flat[o + 4] * w;
-        const dx = flat[o + 3] - flat[o + 5] * w2;
-        // N conj(D)
-        const cr = nx * dx + n1w * d1w;
-        const ci = n1w * dx - nx * d1w;
-        const t = pr * cr - pi * ci;
-        pi = pr * ci + pi * cr;
-        pr = t;
-        const dd = dx * dx + d1w * d1w;
-        q *= dd;
-        if (withDelay) {
-          // d/dw arg(x + jy) = (x y' - y x') / (x^2 + y^2) with x' = -2 c2 w, y' = c1
-          const nn = nx * nx + n1w * n1w;
-          const argN = (nx * flat[o + 1] + n1w * 2 * flat[o + 2] * w) / nn;
-          const argD = (dx * flat[o + 4] + d1w * 2 * flat[o + 5] * w) / dd;
-          tau += argD - argN; // tau = -d arg H / dw
-        }
-      }
-      gainDb[p] = 20 * (logGain + Math.log10(Math.hypot(pr, pi) / q));
-      const raw = Math.atan2(pi, pr) + base;
-      if (p > 0) offset -= 2 * Math.PI * Math.round((raw + offset - prev) / (2 * Math.PI));
-      prev = raw + offset;
-      phaseDeg[p] = (prev * 180) / Math.PI;
-      groupDelayS[p] = withDelay ? tau : NaN;
-    }
+    sweepKernel(sectionGain, rn, cn, dn, frequencyHz, gainDb, phaseDeg, groupDelayS, withDelay);
     return { frequencyHz, gainDb, phaseDeg, groupDelayS };
   };
 
   return { zeros, poles, gain, sections, sectionGain, evaluate, sweep };
 }
+
+/** The sweep loop, on plain arguments so every array is a local of the hot loop. */
+function sweepKernel(
+  g: number,
+  rn: Float64Array,
+  cn: Float64Array,
+  dn: Float64Array,
+  frequencyHz: Float64Array,
+  gainDb: Float64Array,
+  phaseDeg: Float64Array,
+  groupDelayS: Float64Array,
+  withDelay: boolean,
+): void {
+  const m = frequencyHz.length;
+  let prev = 0;
+  let offset = 0;
+  for (let p = 0; p < m; p++) {
+    const w = TWO_PI * frequencyHz[p];
+    const w2 = w * w;
+    let nr = g;
+    let ni = 0;
+    for (let o = 0; o < rn.length; o += 2) {
+      const x = rn[o] - rn[o + 1] * w2;
+      nr *= x;
+      ni *= x;
+    }
+    for (let o = 0; o < cn.length; o += 3) {
+      const x = cn[o] - cn[o + 2] * w2;
+      const y = cn[o + 1] * w;
+      const t = nr * x - ni * y;
+      ni = nr * y + ni * x;
+      nr = t;
+    }
+    let dr = 1;
+    let di = 0;
+    for (let o = 0; o < dn.length; o += 3) {
+      const x = dn[o] - dn[o + 2] * w2;
+      const y = dn[o + 1] * w;
+      const t = dr * x - di * y;
+      di = dr * y + di * x;
+      dr = t;
+    }
+    // H = N / D by Smith's division
+    let hr: number;
+    let hi: number;
+    if (Math.abs(dr) >= Math.abs(di)) {
+      const t = di / dr;
+      const d = dr + di * t;
+      hr = (nr + ni * t) / d;
+      hi = (ni - nr * t) / d;
+    } else {
+      const t = dr / di;
+      const d = dr * t + di;
+      hr = (nr * t + ni) / d;
+      hi = (ni * t - nr) / d;
+    }
+    gainDb[p] = DB_PER_NEPER_POWER * Math.log(hr * hr + hi * hi); // 10 log10 |H|^2, via ln (measured about 40% cheaper)
+    // arg H up to a multiple of 2 pi (the unwrapping removes it): atan(y/x), plus pi for x < 0;
+    // atan of the ratio costs about half of atan2, and x = 0 gives atan(+-Infinity) = +-pi/2
+    let raw = hr === 0 && hi === 0 ? 0 : Math.atan(hi / hr) + (hr < 0 ? Math.PI : 0);
+    if (p === 0 && raw > Math.PI) raw -= TWO_PI; // start on the principal value
+    if (p > 0) offset -= TWO_PI * Math.round((raw + offset - prev) / TWO_PI);
+    prev = raw + offset;
+    phaseDeg[p] = prev * DEG_PER_RAD;
+    if (withDelay) {
+      // tau = -d arg H/dw = sum over factors of -+ d/dw arg(x + j y) = (x y' - y x')/(x^2 + y^2),
+      // with x = c0 - c2 w^2, y = c1 w: x' = -2 c2 w, y' = c1
+      let tau = 0;
+      for (let o = 0; o < dn.length; o += 3) {
+        const x = dn[o] - dn[o + 2] * w2;
+        const y = dn[o + 1] * w;
+        tau += (x * dn[o + 1] + y * 2 * dn[o + 2] * w) / (x * x + y * y);
+      }
+      for (let o = 0; o < cn.length; o += 3) {
+        const x = cn[o] - cn[o + 2] * w2;
+        const y = cn[o + 1] * w;
+        tau -= (x * cn[o + 1] + y * 2 * cn[o + 2] * w) / (x * x + y * y);
+      }
+      groupDelayS[p] = tau; // real numerator factors have constant phase (0 or pi) between their zeros
+    } else {
+      groupDelayS[p] = NaN;
+    }
+  }
+}
+
+const TWO_PI = 2 * Math.PI;
+const DEG_PER_RAD = 180 / Math.PI;
+/** 10 / ln 10: dB of a power ratio from its natural logarithm. */
+const DB_PER_NEPER_POWER = 10 / Math.LN10;
 
 interface Group {
   readonly roots: readonly Complex[]; // one real root, two real roots, or a conjugate pair (im < 0 first)
