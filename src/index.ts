@@ -4,3 +4,10 @@
  */
 export * from './errors';
 export * from './algebra/index';
+export * from './units/index';
+export * from './netlist/index';
+export * from './analysis/index';
+export * from './approximation/index';
+export * from './transform/index';
+export * from './converter/index';
+export * from './export/index';

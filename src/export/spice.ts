@@ -36,7 +36,7 @@ import { fractionToNumber, type Fraction } from '../algebra/index';
 import { InvalidInputError, requireInteger, requirePositive, UnrealizableError } from '../errors';
 
 /** A logarithmic AC sweep: `.ac dec pointsPerDecade startHz stopHz`. */
-export interface AcSweep {
+export interface SpiceAcSweep {
   readonly pointsPerDecade: number;
   readonly startHz: number;
   readonly stopHz: number;
@@ -50,13 +50,13 @@ export interface CircuitToSpiceOptions {
   /** The circuit node written as `out`. Default: the circuit's node `out`. */
   readonly output?: string;
   /** The `.ac` card. Default {@link DEFAULT_AC_SWEEP}. */
-  readonly acSweep?: AcSweep;
+  readonly acSweep?: SpiceAcSweep;
   /** How to write FDNR (D) elements: `'equivalent'` (default, exact linear controlled sources) or `'refuse'`. */
   readonly fdnr?: 'equivalent' | 'refuse';
 }
 
 /** 20 points per decade from 1 Hz to 1 MHz: the audio and low-RF range the GIC filters target. */
-export const DEFAULT_AC_SWEEP: AcSweep = Object.freeze({ pointsPerDecade: 20, startHz: 1, stopHz: 1e6 });
+export const DEFAULT_AC_SWEEP: SpiceAcSweep = Object.freeze({ pointsPerDecade: 20, startHz: 1, stopHz: 1e6 });
 
 /** ngspice accepts up to this many points per decade without complaint; more is never useful for a filter plot. */
 const MAX_POINTS_PER_DECADE = 100_000;
@@ -181,7 +181,7 @@ function describeModel(model: OpampModel): string {
   }
 }
 
-function validateSweep(sweep: AcSweep): AcSweep {
+function validateSweep(sweep: SpiceAcSweep): SpiceAcSweep {
   if (typeof sweep !== 'object' || sweep === null) throw new InvalidInputError('INVALID_ARGUMENT', 'options.acSweep', sweep, 'must be { pointsPerDecade, startHz, stopHz }');
   requireInteger(sweep.pointsPerDecade, 'options.acSweep.pointsPerDecade', 1, MAX_POINTS_PER_DECADE);
   requirePositive(sweep.startHz, 'options.acSweep.startHz');

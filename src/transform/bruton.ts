@@ -2,7 +2,7 @@
  * The Bruton transform (L. T. Bruton, "Network transfer functions using the concept of frequency-
  * dependent negative resistance", IEEE Trans. Circuit Theory CT-16(3), 1969): every impedance of the
  * network is multiplied by k/s. A voltage transfer function is a ratio of impedances, so it is
- * unchanged. Element by element (k in rad/s, exact):
+ * unchanged. NetworkElement by element (k in rad/s, exact):
  *   R -> C = 1/(k R)        (k R / s)
  *   L -> R = k L            (s L * k/s)
  *   C -> D = C / k          (k/(s^2 C) = 1/(s^2 D))

@@ -13,7 +13,7 @@ import { Fraction, toFraction, type RationalLike } from '../algebra/rational';
 import { RationalFunction } from '../algebra/rational-function';
 import { Poly } from '../algebra/poly';
 import { InvalidInputError } from '../errors';
-import { element, mapLadder, type Element, type Network, type NetworkLadder } from './network';
+import { element, mapLadder, type NetworkElement, type Network, type NetworkLadder } from './network';
 
 function positive(x: RationalLike, path: string): Fraction {
   const f = toFraction(x, path);
@@ -21,7 +21,7 @@ function positive(x: RationalLike, path: string): Fraction {
   return f;
 }
 
-function refuseFdnr(e: Element, map: string): never {
+function refuseFdnr(e: NetworkElement, map: string): never {
   throw new InvalidInputError('INVALID_ARGUMENT', e.origin, e.kind, `an FDNR has no element image under the ${map} map; transform before the Bruton transform`);
 }
 

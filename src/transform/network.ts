@@ -12,23 +12,23 @@ import { Poly } from '../algebra/poly';
 import type { Branch, BranchPlacement, ExactLadder, Ladder } from '../ladder/types';
 import { InvalidInputError } from '../errors';
 
-export type ElementKind = 'R' | 'L' | 'C' | 'D';
+export type NetworkElementKind = 'R' | 'L' | 'C' | 'D';
 
 /** One two-terminal element. */
-export interface Element {
-  readonly kind: ElementKind;
+export interface NetworkElement {
+  readonly kind: NetworkElementKind;
   readonly value: Fraction;
   /** Which prototype element this one came from (e.g. 'L2', 'C3', 'Rs'), kept through every transform. */
   readonly origin: string;
 }
 
 /** A series or parallel combination of networks. */
-export interface Combination {
+export interface NetworkCombination {
   readonly kind: 'series' | 'parallel';
   readonly parts: readonly Network[];
 }
 
-export type Network = Element | Combination;
+export type Network = NetworkElement | NetworkCombination;
 
 export interface NetworkBranch {
   readonly placement: BranchPlacement;
@@ -46,9 +46,9 @@ export interface NetworkLadder {
   readonly branches: readonly NetworkBranch[];
 }
 
-export const element = (kind: ElementKind, value: RationalLike, origin: string): Element => ({ kind, value: toFraction(value, origin), origin });
+export const element = (kind: NetworkElementKind, value: RationalLike, origin: string): NetworkElement => ({ kind, value: toFraction(value, origin), origin });
 
-export const isElement = (n: Network): n is Element => n.kind === 'R' || n.kind === 'L' || n.kind === 'C' || n.kind === 'D';
+export const isElement = (n: Network): n is NetworkElement => n.kind === 'R' || n.kind === 'L' || n.kind === 'C' || n.kind === 'D';
 
 /** The exact impedance of a network as a rational function of s. */
 export function impedanceOf(n: Network): RationalFunction {
@@ -70,12 +70,12 @@ export function impedanceOf(n: Network): RationalFunction {
 }
 
 /** Every element of a network, depth first. */
-export function elementsOf(n: Network): Element[] {
+export function elementsOf(n: Network): NetworkElement[] {
   return isElement(n) ? [n] : n.parts.flatMap(elementsOf);
 }
 
 /** Every element of a ladder: source, branches in order, load. */
-export function ladderElements(l: NetworkLadder): Element[] {
+export function ladderElements(l: NetworkLadder): NetworkElement[] {
   return [
     ...(l.source ? elementsOf(l.source) : []),
     ...l.branches.flatMap((b) => elementsOf(b.network)),
@@ -84,13 +84,13 @@ export function ladderElements(l: NetworkLadder): Element[] {
 }
 
 /** Rebuilds a network with every element replaced by `f(element)` (which may return a network). */
-export function mapNetwork(n: Network, f: (e: Element) => Network): Network {
+export function mapNetwork(n: Network, f: (e: NetworkElement) => Network): Network {
   if (isElement(n)) return f(n);
   return { kind: n.kind, parts: n.parts.map((p) => mapNetwork(p, f)) };
 }
 
 /** Applies `f` to every element of the ladder, terminations included. */
-export function mapLadder(l: NetworkLadder, f: (e: Element) => Network): NetworkLadder {
+export function mapLadder(l: NetworkLadder, f: (e: NetworkElement) => Network): NetworkLadder {
   return {
     source: l.source ? mapNetwork(l.source, f) : null,
     load: l.load === 'open' ? 'open' : mapNetwork(l.load, f),
@@ -122,7 +122,7 @@ export function fromLadder(ladder: Ladder | ExactLadder): NetworkLadder {
 
 function branchNetwork(b: Branch | ExactLadder['branches'][number], k: number): Network {
   const path = `ladder.branches[${k - 1}]`;
-  const parts: Element[] = [];
+  const parts: NetworkElement[] = [];
   if (b.inductanceH !== undefined) parts.push(element('L', positiveExact(b.inductanceH, `${path}.inductanceH`), `L${k}`));
   if (b.capacitanceF !== undefined) parts.push(element('C', positiveExact(b.capacitanceF, `${path}.capacitanceF`), `C${k}`));
   if (parts.length === 0) throw new InvalidInputError('INVALID_ARGUMENT', path, b, 'a branch needs an inductance or a capacitance');
