@@ -27,6 +27,24 @@ export function ipMul(a: IntPoly, b: IntPoly): IntPoly {
   return ipTrim(out);
 }
 
+/** a*b - c*d in one pass (the Bareiss update's numerator), without the intermediate products. */
+export function ipMulSub(a: IntPoly, b: IntPoly, c: IntPoly, d: IntPoly): IntPoly {
+  const n = Math.max(a.length + b.length, c.length + d.length) - 1;
+  if (n <= 0) return [];
+  const out: IntPoly = new Array(n).fill(0n);
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i];
+    if (x === 0n) continue;
+    for (let j = 0; j < b.length; j++) out[i + j] += x * b[j];
+  }
+  for (let i = 0; i < c.length; i++) {
+    const x = c[i];
+    if (x === 0n) continue;
+    for (let j = 0; j < d.length; j++) out[i + j] -= x * d[j];
+  }
+  return ipTrim(out);
+}
+
 /** a - b. */
 export function ipSub(a: IntPoly, b: IntPoly): IntPoly {
   const n = Math.max(a.length, b.length);
