@@ -17,6 +17,7 @@ import { InvalidInputError, requireFinite } from '../errors';
 import { assertTopology, SingularCircuitError, validateOpampModel, type Circuit, type OpampModel } from '../netlist/index';
 import { resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from './mna-system';
 import { factorSparseLu, planSparseLu, solveSparseLu, type ComplexSample, type SparseLuPlan } from './sparse-lu';
+import { generateLuKernels, type LuKernels } from './lu-codegen';
 
 /**
  * Frequencies (Hz) at which the pivot order is checked numerically at compile time: six decades apart
@@ -27,6 +28,11 @@ export const DEFAULT_CHECK_FREQUENCIES_HZ: readonly number[] = [1e-2, 1, 1e2, 1e
 export interface CompileAcOptions {
   /** Frequencies (Hz) at which the pivot order must be numerically sound; default {@link DEFAULT_CHECK_FREQUENCIES_HZ}. */
   readonly checkFrequenciesHz?: readonly number[];
+  /**
+   * Generate straight-line kernels for the fixed plan (lu-codegen.ts; default true). They give the
+   * same results bit for bit; false keeps the interpreted kernels (e.g. under a CSP without eval).
+   */
+  readonly generateKernels?: boolean;
 }
 
 /** One frequency's solution: every unknown (node voltages first) relative to the input, and H. */
@@ -88,7 +94,7 @@ export interface CompiledAc {
 export function compileAc(circuit: Circuit, spec: TransferSpec, options: CompileAcOptions = {}): CompiledAc {
   assertTopology(circuit);
   const problem = resolveTransfer(circuit, spec);
-  return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ);
+  return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ, options.generateKernels ?? true);
 }
 
 class AcEngine implements CompiledAc {
@@ -141,8 +147,9 @@ class AcEngine implements CompiledAc {
   private readonly wPow: Float64Array;
   private readonly opampKinds: Map<string, OpampModel['model']>;
   private readonly tmp = new Float64Array(8);
+  private readonly kernels: LuKernels | null;
 
-  constructor(circuit: Circuit, problem: MnaProblem, checkHz: readonly number[]) {
+  constructor(circuit: Circuit, problem: MnaProblem, checkHz: readonly number[], generate: boolean) {
     const sys = problem.system;
     const n = sys.size;
     this.n = n;
@@ -236,6 +243,12 @@ class AcEngine implements CompiledAc {
     }
     this.plan = planned.plan;
     this.gSlot = Int32Array.from(keys.map((k) => this.plan.slotOf[k]));
+    this.kernels = generate
+      ? generateLuKernels(
+          this.plan,
+          Array.from(this.gSlot, (slot, g) => ({ weight: g, slot, power: this.gPow[g] })),
+        )
+      : null;
     this.vr = new Float64Array(this.plan.slotCount);
     this.vi = new Float64Array(this.plan.slotCount);
     this.invRe = new Float64Array(n);
@@ -309,10 +322,11 @@ class AcEngine implements CompiledAc {
   /** Fills and factorises A(j w); returns false at a singular point. */
   private factorAt(w: number): boolean {
     const { vr, vi, wPow, gSlot, gPow, gWeight, cls } = this;
-    vr.fill(0);
-    vi.fill(0);
     wPow[0] = 1;
     for (let k = 1; k < wPow.length; k++) wPow[k] = wPow[k - 1] * w;
+    if (this.kernels) return this.kernels.fillFactor(w, gWeight, vr, vi, this.invRe, this.invIm);
+    vr.fill(0);
+    vi.fill(0);
     // (j w)^k = w^k j^k, j^k = 1, j, -1, -j by k mod 4
     for (let g = cls[0]; g < cls[1]; g++) vr[gSlot[g]] += gWeight[g] * wPow[gPow[g]];
     for (let g = cls[1]; g < cls[2]; g++) vi[gSlot[g]] += gWeight[g] * wPow[gPow[g]];
@@ -327,7 +341,8 @@ class AcEngine implements CompiledAc {
     br.fill(0);
     bi.fill(0);
     for (let i = 0; i < this.bRow.length; i++) br[this.bRow[i]] += this.bVal[i];
-    solveSparseLu(this.plan, this.vr, this.vi, this.invRe, this.invIm, br, bi, this.xr, this.xi);
+    if (this.kernels) this.kernels.solve(this.vr, this.vi, this.invRe, this.invIm, br, bi, this.xr, this.xi);
+    else solveSparseLu(this.plan, this.vr, this.vi, this.invRe, this.invIm, br, bi, this.xr, this.xi);
   }
 
   /** dx/dw = -A^-1 (dA/dw) x into dr/di (after solveRhs). d/dw of w^k j^k is k w^(k-1) j^k. */
@@ -360,7 +375,8 @@ class AcEngine implements CompiledAc {
           bi[r] += d * xr[c];
       }
     }
-    solveSparseLu(this.plan, this.vr, this.vi, this.invRe, this.invIm, br, bi, this.dr, this.di);
+    if (this.kernels) this.kernels.solve(this.vr, this.vi, this.invRe, this.invIm, br, bi, this.dr, this.di);
+    else solveSparseLu(this.plan, this.vr, this.vi, this.invRe, this.invIm, br, bi, this.dr, this.di);
   }
 
   solveAt(frequencyHz: number, out: AcSolution = this.createSolution()): AcSolution {

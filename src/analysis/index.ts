@@ -5,3 +5,4 @@ export * from './sparse-lu';
 export * from './ac-engine';
 export * from './factored-response';
 export * from './reduce-rational';
+export * from './lu-codegen';
