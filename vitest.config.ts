@@ -6,6 +6,7 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 120_000,
     pool: 'forks',
+    setupFiles: ['test/setup.ts'],
     // The JSON report is what .ci/run counts; the default reporter is for people.
     reporters: ['default', 'json'],
     outputFile: { json: '.vitest-report.json' },

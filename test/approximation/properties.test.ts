@@ -75,7 +75,9 @@ describe('prototype properties', () => {
     fc.assert(
       fc.property(order(2), ripple, attenuation, (n, rp, rs) => {
         const zpk = lowpassPrototype({ family: 'elliptic', order: n, passbandRippleDb: rp, stopbandAttenuationDb: rs });
-        const tolDb = 1e-8;
+        // High-order elliptic poles sit within ~1e-4 of the j-axis; evaluating |H| near them scales the
+        // roots' rounding by |p|/distance (measured: 1.8e-8 dB at order 14, 2.65 dB ripple, 20 dB).
+        const tolDb = 1e-7;
         for (let i = 0; i <= 400; i++) {
           const db = gainDbAt(zpk, i / 400);
           expect(db).toBeLessThanOrEqual(tolDb);
