@@ -280,7 +280,8 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   }
 
   const exactLadder: ExactLadder = { sourceOhms: Rs, loadOhms: realizedLoad, branches: exactBranches };
-  const ladder = toFloatLadder(exactLadder, load === undefined || load === 'open' ? undefined : load);
+  const keptLoad = load === undefined || load === 'open' ? (requestedLoad instanceof Fraction ? sourceOhms : undefined) : load;
+  const ladder = toFloatLadder(exactLadder, keptLoad);
   const dcTransfer = doubly ? fractionToNumber((realizedLoad as Fraction).div(Rs.add(realizedLoad as Fraction))) : 1;
   return { ladder, exactLadder, realizedPrototype: zpk, dcTransfer, tankOrder: usedOrder, diagnostics };
 }
