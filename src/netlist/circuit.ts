@@ -166,6 +166,34 @@ export class Circuit {
     return this;
   }
 
+  /**
+   * A new circuit with some elements' main values replaced (R ohms, C farads, L henries, FDNR D, source
+   * amplitudes, E gain, G transconductance) and some op-amps' models; everything else is shared.
+   * Throws InvalidInputError for an unknown name or a value the element does not accept.
+   */
+  withValues(values: Readonly<Record<string, RationalLike>>, opampModels: Readonly<Record<string, OpampModel>> = {}): Circuit {
+    for (const name of [...Object.keys(values), ...Object.keys(opampModels)]) {
+      if (!this.byName.has(name)) throw new InvalidInputError('INVALID_ARGUMENT', `values.${name}`, name, 'is not an element of the circuit');
+    }
+    const out = new Circuit();
+    for (const e of this.list) {
+      let copy: CircuitElement = e;
+      if (e.name in values) {
+        const path = `values.${e.name}`;
+        if (e.kind === 'OPAMP') throw new InvalidInputError('INVALID_ARGUMENT', path, values[e.name], 'op-amps take a model (opampModels), not a value');
+        const passive = e.kind === 'R' || e.kind === 'C' || e.kind === 'L' || e.kind === 'D';
+        copy = e.withValue(passive ? positive(values[e.name], path) : toFraction(values[e.name], path));
+      }
+      if (e.name in opampModels) {
+        if (e.kind !== 'OPAMP') throw new InvalidInputError('INVALID_ARGUMENT', `opampModels.${e.name}`, e.name, 'is not an op-amp');
+        copy = e.withModel(validateOpampModel(opampModels[e.name], `opampModels.${e.name}`));
+      }
+      for (const node of copy.nodes) out.n(node, copy.name);
+      out.add(copy);
+    }
+    return out;
+  }
+
   private add(e: CircuitElement): this {
     this.list.push(e);
     this.byName.set(e.name, e);

@@ -43,6 +43,10 @@ export class Resistor extends TwoTerminal {
   renamed(name: string, map: NodeMap): Resistor {
     return new Resistor(name, map(this.a), map(this.b), this.ohms);
   }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Resistor {
+    return new Resistor(this.name, this.a, this.b, value);
+  }
 }
 
 /** A capacitor of `farads`: admittance sC. */
@@ -60,6 +64,10 @@ export class Capacitor extends TwoTerminal {
   }
   renamed(name: string, map: NodeMap): Capacitor {
     return new Capacitor(name, map(this.a), map(this.b), this.farads);
+  }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Capacitor {
+    return new Capacitor(this.name, this.a, this.b, value);
   }
 }
 
@@ -89,6 +97,10 @@ export class Inductor extends TwoTerminal {
   renamed(name: string, map: NodeMap): Inductor {
     return new Inductor(name, map(this.a), map(this.b), this.henries);
   }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Inductor {
+    return new Inductor(this.name, this.a, this.b, value);
+  }
 }
 
 /**
@@ -110,6 +122,10 @@ export class Fdnr extends TwoTerminal {
   }
   renamed(name: string, map: NodeMap): Fdnr {
     return new Fdnr(name, map(this.a), map(this.b), this.d);
+  }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Fdnr {
+    return new Fdnr(this.name, this.a, this.b, value);
   }
 }
 
@@ -142,6 +158,10 @@ export class VoltageSource extends TwoTerminal {
   renamed(name: string, map: NodeMap): VoltageSource {
     return new VoltageSource(name, map(this.a), map(this.b), this.volts);
   }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): VoltageSource {
+    return new VoltageSource(this.name, this.a, this.b, value);
+  }
 }
 
 /** An independent current source of `amps` flowing from node a through the source to node b. */
@@ -161,6 +181,10 @@ export class CurrentSource extends TwoTerminal {
   }
   renamed(name: string, map: NodeMap): CurrentSource {
     return new CurrentSource(name, map(this.a), map(this.b), this.amps);
+  }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): CurrentSource {
+    return new CurrentSource(this.name, this.a, this.b, value);
   }
 }
 
@@ -210,6 +234,10 @@ export class Vcvs extends Controlled {
   renamed(name: string, map: NodeMap): Vcvs {
     return new Vcvs(name, map(this.outPlus), map(this.outMinus), map(this.controlPlus), map(this.controlMinus), this.gain);
   }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Vcvs {
+    return new Vcvs(this.name, this.outPlus, this.outMinus, this.controlPlus, this.controlMinus, value);
+  }
 }
 
 /**
@@ -246,6 +274,10 @@ export class Vccs extends Controlled {
   }
   renamed(name: string, map: NodeMap): Vccs {
     return new Vccs(name, map(this.outPlus), map(this.outMinus), map(this.controlPlus), map(this.controlMinus), this.transconductance);
+  }
+  /** A copy with another value (same name and nodes). */
+  withValue(value: Fraction): Vccs {
+    return new Vccs(this.name, this.outPlus, this.outMinus, this.controlPlus, this.controlMinus, value);
   }
 }
 
@@ -312,6 +344,10 @@ export class Opamp implements Stampable {
   }
   renamed(name: string, map: NodeMap): Opamp {
     return new Opamp(name, map(this.plus), map(this.minus), map(this.out), this.model);
+  }
+  /** A copy with another model (same name and nodes). */
+  withModel(model: OpampModel): Opamp {
+    return new Opamp(this.name, this.plus, this.minus, this.out, model);
   }
 }
 

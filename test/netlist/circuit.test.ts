@@ -70,6 +70,28 @@ describe('Circuit builder', () => {
     expect((c.element('X.B.R') as Resistor).ohms.equals(new Fraction(1))).toBe(true);
   });
 
+  it('withValues copies the circuit with replaced values and op-amp models, leaving the original alone', () => {
+    const c = new Circuit().addVoltageSource('V1', 'in', '0').addResistor('R1', 'in', 'out', 1).addCapacitor('C1', 'out', '0', 2).addOpamp('U1', { plus: 'out', minus: 'o', out: 'o' });
+    const d = c.withValues({ R1: '4.7', V1: 3 }, { U1: { model: 'finite-gain', gain: 100 } });
+    expect((d.element('R1') as Resistor).ohms.equals(new Fraction(47, 10))).toBe(true);
+    expect((c.element('R1') as Resistor).ohms.equals(new Fraction(1))).toBe(true);
+    expect((d.element('U1') as Opamp).model).toEqual({ model: 'finite-gain', gain: 100 });
+    expect(d.nodes).toEqual(c.nodes);
+    expect(d.elements.map((e) => e.name)).toEqual(c.elements.map((e) => e.name));
+    const code = (f: () => unknown) => {
+      try {
+        f();
+        return 'none';
+      } catch (e) {
+        return (e as GicladderError).code;
+      }
+    };
+    expect(code(() => c.withValues({ R9: 1 }))).toBe('INVALID_ARGUMENT');
+    expect(code(() => c.withValues({ C1: -1 }))).toBe('OUT_OF_RANGE');
+    expect(code(() => c.withValues({ U1: 1 }))).toBe('INVALID_ARGUMENT');
+    expect(code(() => c.withValues({}, { R1: { model: 'ideal' } }))).toBe('INVALID_ARGUMENT');
+  });
+
   it('keeps the op-amp model and terminals', () => {
     const c = new Circuit().addOpamp('U1', { plus: 'p', minus: 'm', out: 'o' });
     const u = c.element('U1') as Opamp;
