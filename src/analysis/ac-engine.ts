@@ -14,7 +14,7 @@
  */
 import { fractionToNumber } from '../algebra/index';
 import { InvalidInputError, requireFinite } from '../errors';
-import { assertTopology, SingularCircuitError, validateOpampModel, type Circuit, type OpampModel } from '../netlist/index';
+import { assertTopology, SingularCircuitError, validateOpampModel, type Circuit, type OpampModel, type TopologyDiagnostic } from '../netlist/index';
 import { resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from './mna-system';
 import { factorSparseLu, planSparseLu, solveSparseLu, type ComplexSample, type SparseLuPlan } from './sparse-lu';
 import { generateLuKernels, type LuKernels } from './lu-codegen';
@@ -85,6 +85,8 @@ export interface CompiledAc {
   sweep(frequenciesHz: ArrayLike<number>, options?: AcSweepOptions): AcSweep;
   /** Allocates a solution record for {@link CompiledAc.solveAt}. */
   createSolution(): AcSolution;
+  /** Topology warnings found at compile time (NO_DC_PATH: the engine is singular at f = 0, ...). */
+  readonly diagnostics: readonly TopologyDiagnostic[];
 }
 
 /**
@@ -92,9 +94,9 @@ export interface CompiledAc {
  * Throws SingularCircuitError when the topology is singular or no pivot order exists.
  */
 export function compileAc(circuit: Circuit, spec: TransferSpec, options: CompileAcOptions = {}): CompiledAc {
-  assertTopology(circuit);
+  const diagnostics = assertTopology(circuit);
   const problem = resolveTransfer(circuit, spec);
-  return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ, options.generateKernels ?? true);
+  return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ, options.generateKernels ?? true, diagnostics);
 }
 
 class AcEngine implements CompiledAc {
@@ -149,7 +151,13 @@ class AcEngine implements CompiledAc {
   private readonly tmp = new Float64Array(8);
   private readonly kernels: LuKernels | null;
 
-  constructor(circuit: Circuit, problem: MnaProblem, checkHz: readonly number[], generate: boolean) {
+  constructor(
+    circuit: Circuit,
+    problem: MnaProblem,
+    checkHz: readonly number[],
+    generate: boolean,
+    readonly diagnostics: readonly TopologyDiagnostic[],
+  ) {
     const sys = problem.system;
     const n = sys.size;
     this.n = n;

@@ -1,8 +1,10 @@
+/**
+ * The analysis stage's public API: the MNA description, exact network functions, the compiled float
+ * AC engine and the factored float form of an exact H(s). The kernels behind them (sparse-lu.ts,
+ * lu-codegen.ts, int-poly.ts, reduce-rational.ts) are internal.
+ */
 export * from './mna-system';
 export * from './exact-solve';
 export * from './transfer-function';
-export * from './sparse-lu';
 export * from './ac-engine';
 export * from './factored-response';
-export * from './reduce-rational';
-export * from './lu-codegen';

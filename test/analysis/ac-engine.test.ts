@@ -221,6 +221,7 @@ describe('engine laws', () => {
     // an integrator model op-amp follower at DC is fine; a capacitor-only node is singular at f = 0
     const c = new Circuit().addVoltageSource('VIN', 'in', '0').addCapacitor('C1', 'in', 'a', 1).addCapacitor('C2', 'a', '0', 1);
     const engine = compileAc(c, { input: 'VIN', output: 'a' });
+    expect(engine.diagnostics.map((d) => d.code)).toEqual(['NO_DC_PATH']);
     expect(engine.transferAt(1)[0]).toBeCloseTo(0.5, 14);
     const sol = engine.solveAt(0);
     expect(Number.isNaN(sol.hRe) || !Number.isFinite(sol.hRe)).toBe(true);
