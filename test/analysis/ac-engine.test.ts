@@ -63,6 +63,14 @@ describe('compileAc agrees with the exact transfer function', () => {
 
   it('node-input mode (ratio to a node) and a differential output', () => {
     const c = new Circuit().addVoltageSource('VIN', 'src', '0').addResistor('RS', 'src', 'in', 1).addResistor('R1', 'in', 'a', 2).addCapacitor('C1', 'a', 'b', 3).addResistor('R2', 'b', '0', 5);
+    const sourceless = new Circuit().addResistor('R1', 'in', 'a', 2).addCapacitor('C1', 'a', '0', 3);
+    const hs = transferFunction(sourceless, { input: 'in', output: 'a' }); // 1/(1 + 6 s), driven by an added 1 V source
+    const es = compileAc(sourceless, { input: 'in', output: 'a' });
+    for (const f of [0.01, 0.1]) {
+      const e = exactAt(hs, f);
+      const got = es.transferAt(f);
+      expect(Math.hypot(got[0] - e.re, got[1] - e.im)).toBeLessThanOrEqual(REL_TOL * Math.hypot(e.re, e.im));
+    }
     for (const spec of [
       { input: 'in', output: 'b' },
       { input: 'VIN', output: { plus: 'a', minus: 'b' } },

@@ -51,6 +51,15 @@ describe('transferFunction', () => {
     expect(transferFunction(build(m), { input: 'VIN', output: 'out' }).equals(expected)).toBe(true);
   });
 
+  it('controlled sources: a VCVS buffer with gain, a VCCS into a load (SPICE sign conventions)', () => {
+    const e = new Circuit().addVoltageSource('VIN', 'in', '0').addResistor('R1', 'in', '0', 1).addVcvs('E1', 'out', '0', 'in', '0', '5/2').addResistor('RL', 'out', '0', 1);
+    expect(transferFunction(e, { input: 'VIN', output: 'out' }).equals(RationalFunction.constant('5/2'))).toBe(true);
+    // G out 0 in 0 gm: the current gm V(in) flows from out through the source to ground, so V(out) = -gm RL V(in)
+    const g = new Circuit().addVoltageSource('VIN', 'in', '0').addResistor('R1', 'in', '0', 1).addVccs('G1', 'out', '0', 'in', '0', '1/1000').addResistor('RL', 'out', '0', 2000).addCapacitor('CL', 'out', '0', '1/2000');
+    // -gm / (1/RL + s CL) = -(1/1000) / (1/2000 + s/2000) = -2 / (1 + s)
+    expect(transferFunction(g, { input: 'VIN', output: 'out' }).equals(rf([-2], [1, 1]))).toBe(true);
+  });
+
   it('series RLC: Z = R + sL + 1/(sC); FDNR: Z = 1/(s^2 D)', () => {
     const c = new Circuit().addResistor('R', 'a', 'b', 2).addInductor('L', 'b', 'c', 3).addCapacitor('C', 'c', '0', 5);
     // (3*5 s^2 + 2*5 s + 1) / (5 s)
