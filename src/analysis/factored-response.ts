@@ -234,26 +234,20 @@ function sweepKernel(
       di = dr * y + di * x;
       dr = t;
     }
-    // H = N / D by Smith's division
-    let hr: number;
-    let hi: number;
-    if (Math.abs(dr) >= Math.abs(di)) {
-      const t = di / dr;
-      const d = dr + di * t;
-      hr = (nr + ni * t) / d;
-      hi = (ni - nr * t) / d;
-    } else {
-      const t = dr / di;
-      const d = dr * t + di;
-      hr = (nr * t + ni) / d;
-      hi = (ni * t - nr) / d;
-    }
-    gainDb[p] = DB_PER_NEPER_POWER * Math.log(hr * hr + hi * hi); // 10 log10 |H|^2, via ln (measured about 40% cheaper)
+    // |H|^2 = |N|^2 / |D|^2 and arg H = arg(N conj D): no complex division is needed. The unit-scaled
+    // factors keep |N|^2 and |D|^2 far inside the double range for any realistic degree and band.
+    const pr = nr * dr + ni * di;
+    const pi = ni * dr - nr * di;
+    gainDb[p] = DB_PER_NEPER_POWER * Math.log((nr * nr + ni * ni) / (dr * dr + di * di)); // 10 log10 |H|^2 via ln (cheaper)
     // arg H up to a multiple of 2 pi (the unwrapping removes it): atan(y/x), plus pi for x < 0;
     // atan of the ratio costs about half of atan2, and x = 0 gives atan(+-Infinity) = +-pi/2
-    let raw = hr === 0 && hi === 0 ? 0 : Math.atan(hi / hr) + (hr < 0 ? Math.PI : 0);
-    if (p === 0 && raw > Math.PI) raw -= TWO_PI; // start on the principal value
-    if (p > 0) offset -= TWO_PI * Math.round((raw + offset - prev) / TWO_PI);
+    let raw = pr === 0 && pi === 0 ? 0 : Math.atan(pi / pr) + (pr < 0 ? Math.PI : 0);
+    if (p === 0) {
+      if (raw > Math.PI) raw -= TWO_PI; // start on the principal value
+    } else {
+      const jump = raw + offset - prev;
+      if (jump > Math.PI || jump < -Math.PI) offset -= TWO_PI * Math.round(jump / TWO_PI);
+    }
     prev = raw + offset;
     phaseDeg[p] = prev * DEG_PER_RAD;
     if (withDelay) {
