@@ -24,7 +24,7 @@
  * Precision: E and P are exact from the float roots; D = EE* - sigma^2 PP* is exact; only its roots are
  * found in float, then polished in 160-bit fixed point (precise-roots.ts), and the continued fraction is
  * exact. Element values come out as exact rationals rounded once to doubles. Measured against the
- * closed-form Butterworth and Chebyshev values: relative error below 1e-13 up to order 15
+ * closed-form Butterworth and Chebyshev values: relative error below 2e-12 up to order 15
  * (test/ladder/closed-form.test.ts); the prototype's own rounding dominates.
  */
 import { Fraction, Q0, Q1, fractionFromDouble, fractionToNumber } from '../algebra/rational';
