@@ -8,6 +8,7 @@ export * from './units/index';
 export * from './netlist/index';
 export * from './analysis/index';
 export * from './approximation/index';
+export * from './ladder/index';
 export * from './transform/index';
 export * from './converter/index';
 export * from './export/index';
