@@ -11,7 +11,9 @@
 import { RationalFunction } from '../algebra/index';
 import { assertTopology, SingularCircuitError, type Circuit } from '../netlist/index';
 import { resolveImpedance, resolveTransfer, type MnaProblem, type TransferSpec } from './mna-system';
-import { solveCombinationExact } from './exact-solve';
+import { eliminateExact, solveCombinationExact } from './exact-solve';
+import { reduceToRational } from './reduce-rational';
+import type { IntPoly } from './int-poly';
 
 /**
  * V(output)/V(input) exactly (see {@link TransferSpec} for what input and output may name). Throws
@@ -21,11 +23,19 @@ import { solveCombinationExact } from './exact-solve';
 export function transferFunction(circuit: Circuit, spec: TransferSpec): RationalFunction {
   assertTopology(circuit);
   const problem = resolveTransfer(circuit, spec);
-  const out = solveOrThrow(problem, problem.output);
-  if (!problem.reference) return out;
-  const ref = solveOrThrow(problem, problem.reference);
-  if (ref.isZero()) throw new SingularCircuitError('input', [], `the circuit's sources leave the input node '${spec.input}' at 0 V`);
-  return out.div(ref);
+  if (!problem.reference) return solveOrThrow(problem, problem.output);
+  // V(out)/V(in) = (N1/D1)/(N2/D2). Both denominators are the last Bareiss pivot, the determinant of
+  // the same row-scaled matrix up to sign, so D2/D1 is a constant and H = N1 (D2/D1) / N2: one
+  // reduction of two polynomials, not a division of rational functions (whose gcd would be D).
+  const out = eliminateOrThrow(problem, problem.output);
+  const ref = eliminateOrThrow(problem, problem.reference);
+  if (ref.num.length === 0) throw new SingularCircuitError('input', [], `the circuit's sources leave the input node '${spec.input}' at 0 V`);
+  if (out.num.length === 0) return RationalFunction.ZERO;
+  const l1 = out.den[out.den.length - 1];
+  const l2 = ref.den[ref.den.length - 1];
+  const proportional = out.den.length === ref.den.length && out.den.every((c, i) => c * l2 === ref.den[i] * l1);
+  if (proportional) return reduceToRational(out.num.map((c) => c * l2), ref.num.map((c) => c * l1));
+  return reduceToRational(out.num, out.den).div(reduceToRational(ref.num, ref.den));
 }
 
 /**
@@ -36,6 +46,16 @@ export function drivingPointImpedance(circuit: Circuit, nodePlus: string, nodeMi
   const problem = resolveImpedance(circuit, nodePlus, nodeMinus);
   assertTopologyWithPort(circuit, nodePlus, nodeMinus);
   return solveOrThrow(problem, problem.output);
+}
+
+function eliminateOrThrow(problem: MnaProblem, combination: MnaProblem['output']): { num: IntPoly; den: IntPoly } {
+  const r = eliminateExact(problem, combination);
+  if (r.ok) return r;
+  throw new SingularCircuitError(
+    'circuit',
+    [],
+    `the nodal equations are singular for every s (no pivot left for ${r.unpivoted.map((u) => `'${u}'`).join(', ')})`,
+  );
 }
 
 function solveOrThrow(problem: MnaProblem, combination: MnaProblem['output']): RationalFunction {

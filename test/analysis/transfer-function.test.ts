@@ -31,6 +31,20 @@ describe('transferFunction', () => {
     expect(transferFunction(d, { input: 'in', output: 'out' }).equals(rf([1], [1, 10]))).toBe(true);
   });
 
+  it('node-input mode equals the quotient of the two source-driven functions (random circuits)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1e9 }), (seed) => {
+        const { circuit } = randomCircuit(seed, 5);
+        const [a, b] = [circuit.nodes[1], circuit.nodes[circuit.nodes.length - 1]];
+        const va = transferFunction(circuit, { input: 'VIN', output: a });
+        if (va.isZero()) return;
+        const vb = transferFunction(circuit, { input: 'VIN', output: b });
+        expect(transferFunction(circuit, { input: a, output: b }).equals(vb.div(va))).toBe(true);
+      }),
+      { numRuns: 20 },
+    );
+  });
+
   it('a differential output and a current-source input (transimpedance)', () => {
     const c = new Circuit().addCurrentSource('I1', '0', 'a', 1).addResistor('R1', 'a', 'b', 3).addResistor('R2', 'b', '0', 4);
     expect(transferFunction(c, { input: 'I1', output: { plus: 'a', minus: 'b' } }).equals(RationalFunction.constant(3))).toBe(true);
