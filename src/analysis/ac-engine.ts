@@ -15,7 +15,8 @@
 import { fractionToNumber } from '../algebra/index';
 import { InvalidInputError, requireFinite } from '../errors';
 import { assertTopology, SingularCircuitError, validateOpampModel, type Circuit, type OpampModel, type TopologyDiagnostic } from '../netlist/index';
-import { resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from './mna-system';
+import { resolveImpedance, resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from './mna-system';
+import { assertTopologyWithPort } from './transfer-function';
 import { factorSparseLu, planSparseLu, solveSparseLu, type ComplexSample, type SparseLuPlan } from './sparse-lu';
 import { generateLuKernels, type LuKernels } from './lu-codegen';
 
@@ -96,6 +97,17 @@ export interface CompiledAc {
 export function compileAc(circuit: Circuit, spec: TransferSpec, options: CompileAcOptions = {}): CompiledAc {
   const diagnostics = assertTopology(circuit);
   const problem = resolveTransfer(circuit, spec);
+  return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ, options.generateKernels ?? true, diagnostics);
+}
+
+/**
+ * Compiles the driving-point impedance between nodePlus and nodeMinus (default ground) for AC sweeps:
+ * H is V(plus) - V(minus) per ampere injected, every independent source off (as
+ * drivingPointImpedance); gainDb is then 20 log10 |Z / 1 ohm| and node voltages are per ampere.
+ */
+export function compileImpedance(circuit: Circuit, nodePlus: string, nodeMinus = '0', options: CompileAcOptions = {}): CompiledAc {
+  const problem = resolveImpedance(circuit, nodePlus, nodeMinus);
+  const diagnostics = assertTopologyWithPort(circuit, nodePlus, nodeMinus);
   return new AcEngine(circuit, problem, options.checkFrequenciesHz ?? DEFAULT_CHECK_FREQUENCIES_HZ, options.generateKernels ?? true, diagnostics);
 }
 

@@ -9,7 +9,7 @@
  * transferFunction(c, { input: 'VIN', output: 'out' }).toString(); // '(1000) / (s + 1000)'
  */
 import { RationalFunction } from '../algebra/index';
-import { assertTopology, SingularCircuitError, type Circuit } from '../netlist/index';
+import { assertTopology, checkTopology, SingularCircuitError, type Circuit, type TopologyDiagnostic } from '../netlist/index';
 import { resolveImpedance, resolveTransfer, type MnaProblem, type TransferSpec } from './mna-system';
 import { eliminateExact, solveCombinationExact } from './exact-solve';
 import { reduceToRational } from './reduce-rational';
@@ -70,14 +70,13 @@ function solveOrThrow(problem: MnaProblem, combination: MnaProblem['output']): R
 
 /**
  * The topology check for an impedance: the test current source between the port nodes is part of the
- * circuit, so a port node with nothing else on it is not floating.
+ * circuit, so a port node with nothing else on it is not floating. Returns the warnings.
  */
-function assertTopologyWithPort(circuit: Circuit, nodePlus: string, nodeMinus: string): void {
-  try {
-    assertTopology(circuit);
-  } catch (e) {
-    if (!(e instanceof SingularCircuitError)) throw e;
-    const real = e.diagnostics.filter((d) => !(d.code === 'FLOATING_NODE' && d.nodes.every((n) => n === nodePlus || n === nodeMinus)));
-    if (real.length > 0) throw new SingularCircuitError('circuit', real, real.map((d) => d.message).join('; '));
-  }
+export function assertTopologyWithPort(circuit: Circuit, nodePlus: string, nodeMinus: string): readonly TopologyDiagnostic[] {
+  const r = checkTopology(circuit);
+  const errors = r.diagnostics.filter(
+    (d) => d.severity === 'error' && !(d.code === 'FLOATING_NODE' && d.nodes.every((n) => n === nodePlus || n === nodeMinus)),
+  );
+  if (errors.length > 0) throw new SingularCircuitError('circuit', errors, errors.map((d) => d.message).join('; '));
+  return r.diagnostics.filter((d) => d.severity === 'warning');
 }

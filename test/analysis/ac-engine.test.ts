@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import { fractionFromDouble, fractionToNumber, type RationalFunction } from '../../src/algebra/index';
 import { GicladderError } from '../../src/errors';
 import { Circuit, SingularCircuitError } from '../../src/netlist/index';
-import { compileAc, transferFunction } from '../../src/analysis/index';
+import { compileAc, compileImpedance, drivingPointImpedance, transferFunction } from '../../src/analysis/index';
 import { capacitor, gicSubcircuit, randomCircuit, resistor, rng } from './random-circuits';
 
 /** H(j w) exactly at the double w = 2 pi f (the same double the engine uses), rounded once to floats. */
@@ -84,6 +84,25 @@ describe('compileAc agrees with the exact transfer function', () => {
         expect(Math.hypot(got[0] - e.re, got[1] - e.im)).toBeLessThanOrEqual(REL_TOL * Math.hypot(e.re, e.im));
       }
     }
+  });
+});
+
+describe('compileImpedance', () => {
+  it('a GIC with single-pole op-amps: the float Zin agrees with the exact drivingPointImpedance', () => {
+    const model = { model: 'single-pole', gainBandwidthHz: 1e6, openLoopGainDb: 100 } as const;
+    const c = new Circuit().addSubcircuit(gicSubcircuit([resistor('1000'), capacitor('1e-8'), resistor('1000'), resistor('1000'), resistor('1000')], model), 'X1', { p: 'in' });
+    const z = drivingPointImpedance(c, 'in');
+    const engine = compileImpedance(c, 'in');
+    for (const f of [100, 1e3, 1e4, 1e5]) {
+      const e = exactAt(z, f);
+      const got = engine.transferAt(f);
+      expect(Math.hypot(got[0] - e.re, got[1] - e.im)).toBeLessThanOrEqual(REL_TOL * Math.hypot(e.re, e.im));
+    }
+    // with ideal op-amps Z = j w L, L = C2 R1 R3 R5 / R4 = 10 mH (the GIC identity)
+    const ideal = compileImpedance(new Circuit().addSubcircuit(gicSubcircuit([resistor('1000'), capacitor('1e-8'), resistor('1000'), resistor('1000'), resistor('1000')]), 'X1', { p: 'in' }), 'in');
+    const z1k = ideal.transferAt(1000);
+    expect(Math.abs(z1k[1] / (2 * Math.PI * 1000 * 0.01) - 1)).toBeLessThan(1e-13);
+    expect(Math.abs(z1k[0])).toBeLessThan(1e-13 * Math.abs(z1k[1]));
   });
 });
 
