@@ -5,3 +5,4 @@ export * from './poly';
 export * from './rational-function';
 export * from './roots';
 export * from './routh-hurwitz';
+export * from './compensated-horner';

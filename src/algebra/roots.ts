@@ -11,36 +11,47 @@
  */
 import type { Complex } from './complex';
 import { Poly } from './poly';
+import { evaluateAccurately } from './compensated-horner';
 
 /** Iteration cap. Aberth converges cubically once separated; 500 sweeps cover clustered starts of degree <= 60. */
 const MAX_SWEEPS = 500;
 /** Newton polishing steps after convergence; each at least doubles the correct digits of a simple root. */
-const POLISH_STEPS = 3;
+const POLISH_STEPS = 4;
+/** Relative size of the nudge that separates two colliding iterates. */
+const NUDGE = 1e-8;
+
+/**
+ * The roots as the iteration leaves them, polished, in no particular order and without the conjugate
+ * clean-up: for callers that pair roots themselves (the ladder's Feldtkeller factorisation). Roots at the
+ * origin come out exactly.
+ */
+export function aberthRoots(p: readonly number[] | Poly, options: { polish?: boolean } = {}): Complex[] {
+  const asc = p instanceof Poly ? p.toFloatCoefficients() : trimmed(p);
+  if (asc.some((c) => Number.isNaN(c))) return new Array(Math.max(asc.length - 1, 0)).fill({ re: NaN, im: NaN });
+  let zerosAtOrigin = 0;
+  while (zerosAtOrigin < asc.length - 1 && asc[zerosAtOrigin] === 0) zerosAtOrigin++;
+  const a = asc.slice(zerosAtOrigin);
+  const out: Complex[] = new Array(zerosAtOrigin).fill(null).map(() => ({ re: 0, im: 0 }));
+  if (a.length < 2) return out;
+  if (a.length === 2) return [...out, { re: -a[0] / a[1], im: 0 }];
+  const found = aberth(a);
+  // Callers that refine in extended precision themselves (near-double roots converge linearly there,
+  // and a float Newton step can pull a split pair off its midpoint) ask for the raw iterates.
+  if (options.polish !== false) polish(a, found);
+  return [...out, ...found];
+}
 
 /** Roots of a polynomial given by ascending float coefficients, or of a Poly (converted with correct rounding). */
 export function polynomialRoots(p: readonly number[] | Poly): Complex[] {
   const asc = p instanceof Poly ? p.toFloatCoefficients() : trimmed(p);
-  if (asc.some((c) => Number.isNaN(c))) return new Array(Math.max(asc.length - 1, 0)).fill({ re: NaN, im: NaN });
-  // Roots at the origin come out exactly.
   let zerosAtOrigin = 0;
   while (zerosAtOrigin < asc.length - 1 && asc[zerosAtOrigin] === 0) zerosAtOrigin++;
-  const a = asc.slice(zerosAtOrigin);
-  const n = a.length - 1;
-  const roots: Complex[] = [];
-  for (let i = 0; i < zerosAtOrigin; i++) roots.push({ re: 0, im: 0 });
-  if (n < 1) return sortRoots(roots);
-  if (n === 1) {
-    roots.push({ re: -a[0] / a[1], im: 0 });
-    return sortRoots(roots);
+  if (asc.length - zerosAtOrigin === 3 && !asc.some((c) => Number.isNaN(c))) {
+    // Quadratic: the cancellation-free closed form beats iteration.
+    const [c, b, a] = asc.slice(zerosAtOrigin);
+    return sortRoots([...new Array(zerosAtOrigin).fill(null).map(() => ({ re: 0, im: 0 })), ...quadraticRoots(a, b, c)]);
   }
-  if (n === 2) {
-    roots.push(...quadraticRoots(a[2], a[1], a[0]));
-    return sortRoots(roots);
-  }
-  const found = aberth(a);
-  polish(a, found);
-  roots.push(...enforceConjugateSymmetry(found));
-  return sortRoots(roots);
+  return sortRoots(enforceConjugateSymmetry(aberthRoots(asc)));
 }
 
 function trimmed(asc: readonly number[]): number[] {
@@ -117,7 +128,12 @@ function aberth(a: readonly number[]): Complex[] {
       const denr = 1 - (wr * sr - wi * si);
       const deni = -(wr * si + wi * sr);
       const [cr, ci] = divide(wr, wi, denr, deni);
-      if (!Number.isFinite(cr) || !Number.isFinite(ci)) { done[k] = 1; continue; }
+      if (!Number.isFinite(cr) || !Number.isFinite(ci)) {
+        // Two iterates met or p' vanished: nudge this one off the collision (deterministically).
+        zr[k] += NUDGE * radius;
+        zi[k] += NUDGE * radius;
+        continue;
+      }
       zr[k] -= cr;
       zi[k] -= ci;
       if (Math.hypot(cr, ci) <= 4 * Number.EPSILON * Math.hypot(zr[k], zi[k])) done[k] = 1;
@@ -129,26 +145,33 @@ function aberth(a: readonly number[]): Complex[] {
   return out;
 }
 
+/**
+ * Newton steps on each root with the residual from compensated Horner ({@link evaluateAccurately}; the
+ * derivative needs no extra precision), keeping the last iterate whose residual did not grow.
+ */
 function polish(a: readonly number[], z: Complex[]): void {
+  for (let k = 0; k < z.length; k++) z[k] = polishRoot(a, z[k]);
+}
+
+/** One root polished by Newton's method on ascending coefficients `a` (see {@link polish}). */
+export function polishRoot(a: readonly number[], start: Complex): Complex {
   const buf = new Float64Array(4);
-  for (let k = 0; k < z.length; k++) {
-    let { re, im } = z[k];
-    for (let step = 0; step < POLISH_STEPS; step++) {
-      evalWithDerivative(a, re, im, buf);
-      const [cr, ci] = divide(buf[0], buf[1], buf[2], buf[3]);
-      if (!Number.isFinite(cr) || !Number.isFinite(ci)) break;
-      const nr = re - cr;
-      const ni = im - ci;
-      // Accept only steps that do not increase the residual: near multiple roots Newton may wander.
-      evalWithDerivative(a, nr, ni, buf);
-      const newRes = Math.hypot(buf[0], buf[1]);
-      evalWithDerivative(a, re, im, buf);
-      if (newRes > Math.hypot(buf[0], buf[1])) break;
-      re = nr;
-      im = ni;
-    }
-    z[k] = { re, im };
+  let best = start;
+  let p = evaluateAccurately(a, start);
+  let bestResidual = Math.hypot(p.re, p.im);
+  let z = start;
+  for (let step = 0; step < POLISH_STEPS && bestResidual > 0; step++) {
+    evalWithDerivative(a, z.re, z.im, buf);
+    const [cr, ci] = divide(p.re, p.im, buf[2], buf[3]);
+    if (!Number.isFinite(cr) || !Number.isFinite(ci)) break;
+    z = { re: z.re - cr, im: z.im - ci };
+    p = evaluateAccurately(a, z);
+    const residual = Math.hypot(p.re, p.im);
+    if (!(residual < bestResidual)) break;
+    best = z;
+    bestResidual = residual;
   }
+  return best;
 }
 
 /** Smith's division, returning a tuple to stay allocation-light inside the iteration. */

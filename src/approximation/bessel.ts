@@ -16,7 +16,7 @@
  */
 
 import type { Complex } from '../algebra/complex.js';
-import { polishRoot, polynomialRoots } from './polynomial-roots.js';
+import { aberthRoots as polynomialRoots, polishRoot } from '../algebra/roots';
 import { compareRoots, conjugateRootSet, frequencyAtAttenuation, type Zpk } from './zpk.js';
 
 export type BesselNormalization = 'delay' | 'magnitude' | 'phase';

@@ -7,7 +7,7 @@
  */
 import { Poly } from '../algebra/poly';
 import { cAbs, cMul, cDiv, cSub, type Complex } from '../algebra/complex';
-import { floatPolynomialRoots as polynomialRoots } from './float-roots';
+import { aberthRoots as polynomialRoots } from '../algebra/roots';
 import { evenToSquareVariable, type PrototypeZpk } from './prototype-polynomials';
 
 /** |Im x| / |x| below which a stationary point counts as real. */
@@ -42,7 +42,7 @@ export function peakPowerRatio(zpk: PrototypeZpk, E: Poly, P: Poly): number {
   while (N.coefficient(k).n === 0n) k++;
   const stripped = Poly.fromCoefficients(N.coefficients.slice(k));
   if (stripped.degree < 1) return peak;
-  for (const x of polynomialRoots(stripped.toFloatCoefficients())) {
+  for (const x of polynomialRoots(stripped.toFloatCoefficients(), { polish: false })) {
     if (!Number.isFinite(x.re) || !Number.isFinite(x.im)) return NaN;
     if (x.re > 0 && Math.abs(x.im) <= REAL_RELATIVE * x.re) {
       const m = normalizedMagnitude(zpk, { re: 0, im: Math.sqrt(x.re) });

@@ -22,7 +22,7 @@
  */
 import { Fraction, Q0, Q1 } from '../algebra/rational';
 import { Poly } from '../algebra/poly';
-import { floatPolynomialRoots as polynomialRoots } from './float-roots';
+import { aberthRoots as polynomialRoots } from '../algebra/roots';
 import { evenToSquareVariable } from './prototype-polynomials';
 import { fixedToFraction, fixedToNumber, hornerFixed, polishAllRoots, polishComplexRoot, polishRealRoot, toFixedCoefficients } from './precise-roots';
 import { cSqrt, type Complex } from '../algebra/complex';
@@ -78,7 +78,7 @@ export function factorFeldtkeller(E: Poly, P: Poly, sigma2: Fraction, choice: Re
   const jAxis: Fraction[] = [];
   if (rest.degree <= 0) return { F, originMultiplicity: m0, jAxisOmegaSquared: jAxis };
 
-  const floatRoots = polynomialRoots(rest.toFloatCoefficients());
+  const floatRoots = polynomialRoots(rest.toFloatCoefficients(), { polish: false });
   if (floatRoots.some((r) => !Number.isFinite(r.re) || !Number.isFinite(r.im))) return null;
   const restFixed = toFixedCoefficients(rest);
   const fixedRoots = polishAllRoots(restFixed, floatRoots);
