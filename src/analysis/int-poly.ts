@@ -45,21 +45,6 @@ export function ipMulSub(a: IntPoly, b: IntPoly, c: IntPoly, d: IntPoly): IntPol
   return ipTrim(out);
 }
 
-/** a - b. */
-export function ipSub(a: IntPoly, b: IntPoly): IntPoly {
-  const n = Math.max(a.length, b.length);
-  const out: IntPoly = new Array(n);
-  for (let i = 0; i < n; i++) out[i] = (i < a.length ? a[i] : 0n) - (i < b.length ? b[i] : 0n);
-  return ipTrim(out);
-}
-
-export function ipAdd(a: IntPoly, b: IntPoly): IntPoly {
-  const n = Math.max(a.length, b.length);
-  const out: IntPoly = new Array(n);
-  for (let i = 0; i < n; i++) out[i] = (i < a.length ? a[i] : 0n) + (i < b.length ? b[i] : 0n);
-  return ipTrim(out);
-}
-
 export function ipNeg(a: IntPoly): IntPoly {
   return a.map((x) => -x);
 }
