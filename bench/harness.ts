@@ -6,15 +6,19 @@
  *   and writes V(out) at 17 digits; gicladder evaluates the same circuit at exactly the frequencies
  *   ngspice reports (so the comparison is point for point), with the compiled engine (a full MNA solve
  *   per point) and with the factored exact transfer function.
- * - Monte Carlo: gicladder draws every R and C of each trial (uniform within its tolerance, seeded);
- *   the same values are pasted into an ngspice `.control` script as `alter` commands, one `ac` per
- *   trial, so both sides simulate the same boards and are compared trial by trial.
+ * - Monte Carlo: gicladder's runMonteCarlo (src/tolerance) draws every R and C of each trial (uniform
+ *   within its tolerance, seeded); the same values are drawn again here and pasted into an ngspice
+ *   `.control` script as `alter` commands, one `ac` per trial, so both sides simulate the same boards
+ *   and are compared trial by trial (and by their statistics).
  */
-import { fractionToNumber } from '../src/algebra/index';
 import { circuitToSpice } from '../src/export/spice';
 import { compileAc, type CompiledAc } from '../src/analysis/ac-engine';
 import type { FloatTransferFunction } from '../src/analysis/factored-response';
 import type { Circuit } from '../src/netlist/circuit';
+import { sampleDeviation } from '../src/tolerance/distributions';
+import { BlockStreams, DEFAULT_BLOCK_SIZE } from '../src/tolerance/random';
+import type { MonteCarloResult } from '../src/tolerance/monte-carlo';
+import { resolveTolerances, type ToleranceSpec } from '../src/tolerance/spec';
 import type { AcPoint } from '../test/helpers/ngspice';
 import type { FrequencyRange } from './circuits';
 import { AC_SETUP, readAcData, runNgspiceScript, type NgspiceRun } from './ngspice-driver';
@@ -114,33 +118,34 @@ export interface MonteCarloBoards {
   readonly values: Float64Array;
 }
 
-/**
- * A 32-bit xorshift generator (G. Marsaglia, "Xorshift RNGs", J. Stat. Software 8(14), 2003, the
- * (13, 17, 5) triple) scaled to [0, 1): only the benchmark's shared inputs, not a statistical tool.
- */
-function xorshift32(seed: number): () => number {
-  let x = seed >>> 0 || 0x9e3779b9;
-  return () => {
-    x ^= x << 13;
-    x >>>= 0;
-    x ^= x >>> 17;
-    x ^= x << 5;
-    x >>>= 0;
-    return x / 2 ** 32;
-  };
+/** The benchmark's tolerance specification: every R and C of the circuit, uniform within tolerance. */
+export function benchToleranceSpec(circuit: Circuit): ToleranceSpec {
+  const parts = circuit.elements.filter((e) => e.kind === 'R' || e.kind === 'C');
+  return { parts: parts.map((e) => ({ element: e.name, tolerance: e.kind === 'R' ? RESISTOR_TOLERANCE : CAPACITOR_TOLERANCE, distribution: 'uniform' as const })) };
 }
 
-/** Draws every R and C of `trials` boards, uniform within tolerance around the nominal value, seeded. */
-export function drawBoards(circuit: Circuit, trials: number, seed: number): MonteCarloBoards {
-  const parts = circuit.elements.filter((e) => e.kind === 'R' || e.kind === 'C');
-  const nominal = parts.map((e) => (e.kind === 'R' ? fractionToNumber(e.ohms) : e.kind === 'C' ? fractionToNumber(e.farads) : NaN));
-  const tolerance = parts.map((e) => (e.kind === 'R' ? RESISTOR_TOLERANCE : CAPACITOR_TOLERANCE));
-  const next = xorshift32(seed);
-  const values = new Float64Array(trials * parts.length);
-  for (let t = 0; t < trials; t++) {
-    for (let k = 0; k < parts.length; k++) values[t * parts.length + k] = nominal[k] * (1 + tolerance[k] * (2 * next() - 1));
+/**
+ * The boards gicladder's runMonteCarlo (tolerance/monte-carlo.ts) simulates for this spec and seed,
+ * drawn the way its TrialModel.trial draws them: block b's generator from BlockStreams, per trial one
+ * deviation per input in spec order, value = nominal (1 + d). Valid for specs without temperature,
+ * groups or op-amp tolerances (what {@link benchToleranceSpec} gives); the harness test checks that
+ * runMonteCarlo's statistics equal those of these boards.
+ */
+export function drawMonteCarloBoards(circuit: Circuit, spec: ToleranceSpec, trials: number, seed: number, blockSize = DEFAULT_BLOCK_SIZE): MonteCarloBoards {
+  const tol = resolveTolerances(circuit, spec);
+  if (tol.temperature || tol.groups.length > 0 || tol.inputs.some((i) => i.parameter !== i.name)) throw new Error('drawMonteCarloBoards: only independent part tolerances are replicated');
+  const engine = compileAc(circuit, TRANSFER);
+  const nominal = tol.inputs.map((i) => engine.parameters[engine.parameterIndex(i.parameter)]);
+  const streams = new BlockStreams(seed);
+  const p = tol.inputs.length;
+  const values = new Float64Array(trials * p);
+  for (let block = 0; block * blockSize < trials; block++) {
+    const rng = streams.generatorFor(block);
+    for (let t = block * blockSize; t < Math.min(trials, (block + 1) * blockSize); t++) {
+      for (let k = 0; k < p; k++) values[t * p + k] = nominal[k] * (1 + sampleDeviation(rng, tol.inputs[k]));
+    }
   }
-  return { names: parts.map((e) => e.name), trials, values };
+  return { names: tol.inputs.map((i) => i.parameter), trials, values };
 }
 
 /**
@@ -220,4 +225,24 @@ export function compareMonteCarlo(points: readonly AcPoint[], re: Float64Array, 
     out[0] = re[i];
     out[1] = im[i];
   });
+}
+
+/**
+ * runMonteCarlo's gain statistics (mean, standard deviation, min, max per frequency) against the same
+ * statistics of ngspice's trials (`points[t * f + i]`): the largest absolute difference in dB. Equal
+ * boards give differences at the level of the trial-by-trial ones; other boards give the sampling spread.
+ */
+export function compareGainStatistics(points: readonly AcPoint[], result: MonteCarloResult): number {
+  const f = result.frequencyHz.length;
+  const trials = points.length / f;
+  let worst = 0;
+  for (let i = 0; i < f; i++) {
+    const g = Array.from({ length: trials }, (_, t) => gainDbOf(points[t * f + i].re, points[t * f + i].im));
+    const mean = g.reduce((a, b) => a + b, 0) / trials;
+    const sd = Math.sqrt(g.reduce((a, b) => a + (b - mean) ** 2, 0) / (trials - 1));
+    for (const d of [mean - result.gainDb.mean[i], sd - result.gainDb.standardDeviation[i], Math.min(...g) - result.gainDb.min[i], Math.max(...g) - result.gainDb.max[i]]) {
+      if (!(Math.abs(d) <= worst)) worst = Math.abs(d);
+    }
+  }
+  return worst;
 }

@@ -6,10 +6,13 @@
 import { expect, it } from 'vitest';
 import { compileAc } from '../../src/analysis/ac-engine';
 import { benchCircuits } from '../../bench/circuits';
+import { runMonteCarlo } from '../../src/tolerance/monte-carlo';
 import {
+  benchToleranceSpec,
+  compareGainStatistics,
   compareMonteCarlo,
   crossCheckSweep,
-  drawBoards,
+  drawMonteCarloBoards,
   engineMonteCarlo,
   exportNetlist,
   monteCarloScript,
@@ -36,7 +39,8 @@ describeWithNgspice('bench harness: gicladder and ngspice agree on the benchmark
 
     it(`${bc.id}: a 5-trial Monte Carlo at 16 frequencies gives the same boards' responses`, () => {
       const netlist = exportNetlist(bc.circuit, 'harness test');
-      const boards = drawBoards(bc.circuit, 5, 7);
+      const spec = benchToleranceSpec(bc.circuit);
+      const boards = drawMonteCarloBoards(bc.circuit, spec, 5, 7);
       const names = spiceElementNames(bc.circuit, netlist);
       const { points } = ngspiceMonteCarlo(netlist, boards, names, bc.monteCarlo, 15);
       expect(points).toHaveLength(5 * 16);
@@ -50,13 +54,19 @@ describeWithNgspice('bench harness: gicladder and ngspice agree on the benchmark
       // the trials differ from each other (the alter lines took effect): the gain at the band edge spreads
       const edge = Array.from({ length: 5 }, (_, t) => 20 * Math.log10(Math.hypot(re[t * 16 + 8], im[t * 16 + 8])));
       expect(Math.max(...edge) - Math.min(...edge)).toBeGreaterThan(1e-3);
+      // the library's Monte Carlo with the same seed simulated these boards: its statistics are ngspice's
+      const result = runMonteCarlo(bc.circuit, TRANSFER, spec, { frequenciesHz: frequencies, trials: 5, seed: 7 });
+      expect(compareGainStatistics(points, result)).toBeLessThanOrEqual(MAX_DIFFERENCE_DB);
+      // and another seed's boards do not match (the comparison can fail)
+      const other = runMonteCarlo(bc.circuit, TRANSFER, spec, { frequenciesHz: frequencies, trials: 5, seed: 8 });
+      expect(compareGainStatistics(points, other)).toBeGreaterThan(MAX_DIFFERENCE_DB);
     });
   }
 
   it('the Monte Carlo script alters every R and C once per trial, with round-trip values', () => {
     const bc = benchCircuits()[0];
     const netlist = exportNetlist(bc.circuit, 'harness test');
-    const boards = drawBoards(bc.circuit, 3, 1);
+    const boards = drawMonteCarloBoards(bc.circuit, benchToleranceSpec(bc.circuit), 3, 1);
     const script = monteCarloScript(boards, spiceElementNames(bc.circuit, netlist), bc.monteCarlo, 15);
     const alters = script.filter((l) => l.startsWith('alter '));
     expect(alters).toHaveLength(3 * boards.names.length);
