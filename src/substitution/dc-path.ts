@@ -116,13 +116,14 @@ export function chooseDcPath(b: NetworkLadder, h: RationalFunction, omegaEdge: n
   const h0 = h.evaluate(0);
   const grid = passbandGrid(omegaEdge);
   // Float chain matrix of the branches at each grid point (the source and load vary in the search).
+  const immittances = b.branches.map((br) => {
+    const z = impedanceOf(br.network);
+    return { series: br.placement === 'series', f: br.placement === 'series' ? z : z.inverse() };
+  });
   const branchChains = grid.map((w) => {
     let t: C2 = [ONE, ZERO, ZERO, ONE];
-    for (const br of b.branches) {
-      const z = impedanceOf(br.network);
-      const s = { re: 0, im: w };
-      t = cm(t, br.placement === 'series' ? [ONE, z.evaluateComplex(s), ZERO, ONE] : [ONE, ZERO, z.inverse().evaluateComplex(s), ONE]);
-    }
+    const s = { re: 0, im: w };
+    for (const m of immittances) t = cm(t, m.series ? [ONE, m.f.evaluateComplex(s), ZERO, ONE] : [ONE, ZERO, m.f.evaluateComplex(s), ONE]);
     return t;
   });
   const href = grid.map((w) => h.evaluateComplex({ re: 0, im: w }));

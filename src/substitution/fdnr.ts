@@ -28,6 +28,7 @@ import { addGic } from './gic-instance';
 import { ElementNames, GROUND, placeLadder } from './ladder-placement';
 import type { ResolvedOptions } from './options';
 import { addPassive } from './passive-parts';
+import { passiveLadderTransferFunction } from './passive-ladder';
 import type { DcPathReport, Realization, RealizationDiagnostic, RealizedPart } from './realization';
 
 const refuse = (message: string): never => {
@@ -66,7 +67,7 @@ export function realizeFdnrResolved(ladder: NetworkLadder, o: ResolvedOptions, w
     const choice = chooseDcPath(bruton, h, omegaEdge, o.dcPathErrorDb);
     built = choice.ladder;
     dcNames = { source: choice.sourceOhms !== null, load: choice.loadOhms !== null };
-    const errorDb = toFloatPassbandErrorDb(networkLadderTransferFunction(choice.ladder), h, passbandGrid(omegaEdge));
+    const errorDb = toFloatPassbandErrorDb(passiveLadderTransferFunction(choice.ladder), h, passbandGrid(omegaEdge));
     dcPath = { errorDb, boundDb: o.dcPathErrorDb, passbandEdgeHz: omegaEdge / (2 * Math.PI) };
     diagnostics.push({ code: 'DC_PATH_ERROR', message: `DC-path resistors change the passband gain by at most ${errorDb.toExponential(3)} dB (bound ${o.dcPathErrorDb} dB, 0 to ${dcPath.passbandEdgeHz.toPrecision(6)} Hz)` });
     if (errorDb > o.dcPathErrorDb) diagnostics.push({ code: 'DC_PATH_ERROR_ABOVE_BOUND', message: 'no DC-path level up to 1e9 reactances meets the bound' });
