@@ -10,7 +10,7 @@
  *    joined by the worst remaining real pole.
  * 3. That pole pair gets the zeros nearest to it (a complex pair, or up to two real zeros), so each
  *    section's zeros partly cancel its poles' resonance.
- * 4. The overall gain goes into the numerator of the first section.
+ * 4. The overall gain goes into the numerator of the first section (analog: optionally spread evenly).
  * The result: the highest-Q sections come last, after the low-Q ones have already attenuated the
  * out-of-band signal, which keeps the peak gain of every partial cascade low (less overflow and
  * limit-cycle risk in fixed point; L. B. Jackson, "Digital Filters and Signal Processing", 3rd ed.,
@@ -23,7 +23,7 @@
  */
 import type { Complex } from '../algebra/complex';
 import type { AnalogSection } from '../analysis/factored-response';
-import { InvalidInputError, requireFinite } from '../errors';
+import { InvalidInputError, requireFinite, requireOneOf } from '../errors';
 
 export type { AnalogSection };
 
@@ -46,8 +46,17 @@ export interface ZpkInput {
 /** Roots whose imaginary part is within this many eps of |root| are real (scipy's _cplxreal uses 100). */
 const REAL_TOLERANCE_EPS = 100;
 
+export interface AnalogSectionOptions {
+  /**
+   * Where the overall gain goes: 'first' (default, as scipy) into the first numerator; 'spread' as
+   * |gain|^(1/n) into every numerator (the sign into the first), which keeps each coefficient near the
+   * scale of s^2 (rad/s): a 9th-order lowpass at 20 kHz has gain ~ 1e46, beyond binary32.
+   */
+  readonly gain?: 'first' | 'spread';
+}
+
 /** Analog second-order sections of a proper H(s) (no more zeros than poles); see the module comment. */
-export function zpkToAnalogSections(zpk: ZpkInput): AnalogSection[] {
+export function zpkToAnalogSections(zpk: ZpkInput, options: AnalogSectionOptions = {}): AnalogSection[] {
   const { zeros, poles, gain } = validateZpk(zpk);
   if (zeros.length > poles.length) {
     throw new InvalidInputError('OUT_OF_RANGE', 'zpk.zeros', zeros.length, 'an analog H(s) needs no more zeros than poles');
@@ -55,10 +64,11 @@ export function zpkToAnalogSections(zpk: ZpkInput): AnalogSection[] {
   if (poles.length === 0) return [{ n0: gain, n1: 0, n2: 0, d0: 1, d1: 0, d2: 0 }];
   const count = Math.ceil(poles.length / 2);
   const pairs = pairRoots(splitRoots(zeros, 'zpk.zeros'), splitRoots(poles, 'zpk.poles'), count, 'analog');
+  const spread = requireOneOf(options.gain ?? 'first', 'options.gain', ['first', 'spread'] as const) === 'spread';
   return pairs.map(({ z, p }, i) => {
     const [n2, n1, n0] = padLeft(monicPoly(z), 3);
     const [d2, d1, d0] = padLeft(monicPoly(p), 3);
-    const k = i === 0 ? gain : 1;
+    const k = spread ? (i === 0 ? Math.sign(gain) : 1) * Math.abs(gain) ** (1 / pairs.length) : i === 0 ? gain : 1;
     return { n0: n0 * k + 0, n1: n1 * k + 0, n2: n2 * k + 0, d0, d1, d2 }; // + 0: never -0
   });
 }
