@@ -5,15 +5,12 @@ import { propagateUncertainty } from '../../src/tolerance/propagation';
 import type { ToleranceSpec } from '../../src/tolerance/spec';
 import { gicFdnrLowpass } from '../helpers/gic-circuits';
 import { divider, GIC_INDUCTOR_PARTS, gicInductorProbe } from './circuits';
+import { resultJson } from './result-json';
 
 const SINGLE_POLE = { model: 'single-pole', gainBandwidthHz: 1e6, openLoopGainDb: 100 } as const;
 /** A relative change of L is ln(10)/20 times the change of 20 log10 |j w L| in dB. */
 const REL_PER_DB = Math.LN10 / 20;
 
-/** Everything in a result as JSON (typed arrays as plain arrays), for byte-level comparisons. */
-export function resultJson(r: MonteCarloResult): string {
-  return JSON.stringify(r, (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v));
-}
 
 describe('the GIC inductor L = C4 R1 R3 R5 / R2 with five 1 % rectangular parts', () => {
   // JCGM 100 rules: u(x_i)/x_i = 0.01/sqrt(3) each (4.3.7), |c_i| = 1 for a product of powers +-1 (5.1.6),
