@@ -11,10 +11,13 @@
  * (code UNREALIZABLE, path 'options.method', value the method) when the ladder does not suit the route.
  *
  * @example
- * const ladder = scaleImpedance(lowpassToHighpass(fromLadder(ladderPrototype({ family: 'chebyshev', order: 5,
- *   passbandRippleDb: 0.5 })), 2 * Math.PI * 1000), 1000);
+ * // The 3rd-order Butterworth ladder C1 = 1, L2 = 2, C3 = 1 (1 ohm, 1 rad/s) as a 1 kHz, 1 kOhm highpass:
+ * const ladder = scaleImpedance(lowpassToHighpass(fromLadder({ sourceOhms: 1, loadOhms: 1, branches: [
+ *   { placement: 'shunt', capacitanceF: 1 }, { placement: 'series', inductanceH: 2 }, { placement: 'shunt', capacitanceF: 1 },
+ * ] }), 2 * Math.PI * 1000), 1000);
  * const r = realizeLadder(ladder, { method: 'simulated-inductor', capacitorF: '10n' });
- * // r.circuit: VIN -> 1 kOhm -> series capacitors, the shunt inductors as GICs; r.parts lists every R and C
+ * r.parts.filter((p) => p.role.kind === 'gic').length; // 10: the two shunt inductors, five parts each
+ * transferFunction(r.circuit, { input: 'VIN', output: 'out' }).equals(r.reference.transferFunction); // true
  */
 import type { NetworkLadder } from '../transform/network';
 import { realizeFdnrResolved } from './fdnr';

@@ -9,7 +9,8 @@
  *   gic-embedding: lowpass, highpass, bandpass and bandstop.
  * The bandpass and bandstop embedding ladders (degree 2n, up to 11 GICs) cost most; they run every order
  * 1..9 with the family rotating, so each family and each order appears for each type (the full product
- * costs ~25 s); fast-check in properties.test.ts draws further combinations.
+ * would add ~20 s, estimated from per-case costs measured while writing this); fast-check in
+ * properties.test.ts draws further combinations.
  */
 import { describe, expect, it } from 'vitest';
 import { cAbs, cDiv } from '../../src/algebra/complex';
