@@ -12,7 +12,8 @@
  * The Bruton constant is k = 1/(R0 C) with R0 the source resistance (the load's without one) and C the
  * chosen capacitor, so the source capacitor is exactly options.capacitorF. DC-path resistors across the
  * termination capacitors (dc-path.ts) restore a DC path with the prototype's DC gain and a passband error
- * within options.dcPathErrorDb; `dcPathResistors: false` leaves them out (the exact proof's circuit).
+ * within options.dcPathErrorDb (computed for the ladder itself, i.e. with ideal op-amps);
+ * `dcPathResistors: false` leaves them out (the exact proof's circuit).
  * Buffers: 'auto' means both (see buffers.ts).
  */
 import { Q1, fractionToNumber } from '../algebra/rational';
@@ -23,7 +24,7 @@ import { isElement, type Network, type NetworkLadder } from '../transform/networ
 import { networkLadderTransferFunction } from '../transform/response';
 import { addBuffers } from './buffers';
 import { chooseDcPath, passbandGrid, toFloatHalfPowerOmega, toFloatPassbandErrorDb } from './dc-path';
-import { chooseFdnrGic, ladderCharacteristicOmega } from './gic-choices';
+import { chooseFdnrGic, ladderCharacteristicOmega, ladderResistanceLevel } from './gic-choices';
 import { addGic } from './gic-instance';
 import { ElementNames, GROUND, placeLadder } from './ladder-placement';
 import type { ResolvedOptions } from './options';
@@ -50,8 +51,7 @@ export function realizeFdnrResolved(ladder: NetworkLadder, o: ResolvedOptions, w
       refuse(`ladder.branches[${i}] is a series branch with a capacitor, which the Bruton transform makes a floating FDNR; the FDNR route needs a lowpass ladder with every capacitor in a shunt arm (a highpass, bandpass or bandstop ladder goes the 'simulated-inductor' or 'gic-embedding' route)`);
     }
   });
-  const r0 = (ladder.source as { value?: typeof Q1 } | null)?.value ?? (ladder.load !== 'open' ? (ladder.load as { value: typeof Q1 }).value : Q1);
-  const k = Q1.div(r0.mul(o.capacitorF)); // Cs = 1/(k Rs) = capacitorF
+  const k = Q1.div(ladderResistanceLevel(ladder).mul(o.capacitorF)); // Cs = 1/(k Rs) = capacitorF (or Cl, without a source)
   const bruton = brutonTransform(ladder, k);
   const h = networkLadderTransferFunction(ladder);
   const diagnostics: RealizationDiagnostic[] = [
@@ -72,7 +72,7 @@ export function realizeFdnrResolved(ladder: NetworkLadder, o: ResolvedOptions, w
     diagnostics.push({ code: 'DC_PATH_ERROR', message: `DC-path resistors change the passband gain by at most ${errorDb.toExponential(3)} dB (bound ${o.dcPathErrorDb} dB, 0 to ${dcPath.passbandEdgeHz.toPrecision(6)} Hz)` });
     if (errorDb > o.dcPathErrorDb) diagnostics.push({ code: 'DC_PATH_ERROR_ABOVE_BOUND', message: 'no DC-path level up to 1e9 reactances meets the bound' });
     if (choice.dcGainError !== 0) diagnostics.push({ code: 'DC_GAIN_ERROR', message: `the DC gain differs from the prototype's by ${(choice.dcGainError * 100).toPrecision(3)} % (a zero-impedance source leaves no exact choice)` });
-  }
+  } else diagnostics.push({ code: 'NO_DC_PATH', message: 'DC-path resistors left out: exact transfer function, but no DC path to bias the op-amps' });
 
   const circuit = new Circuit().addVoltageSource('VIN', 'in', GROUND);
   const ports = addBuffers(circuit, o.buffers === 'auto' ? 'both' : o.buffers, o.opamp);

@@ -33,7 +33,10 @@ export interface PartRole {
   readonly gic?: string;
   /** For parts of a GIC: its position 1..5 (Z1 at the port, Z5 to ground or to the converted network). */
   readonly position?: 1 | 2 | 3 | 4 | 5;
-  /** The prototype element (origin, e.g. 'L2', 'Rs') the part, or its GIC, realises, where there is one. */
+  /**
+   * The prototype element (origin, e.g. 'L2', 'Rs') the part, or its GIC, realises, where there is one;
+   * comma-separated for an embedding converter shared by several inductors ('L2,L4').
+   */
   readonly realises?: string;
   /**
    * True for a free choice (a GIC capacitor, a resistance level, the DC-path level): the next stage may
