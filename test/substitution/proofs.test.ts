@@ -16,7 +16,7 @@ import { describe, expect, it } from 'vitest';
 import { cAbs, cDiv } from '../../src/algebra/complex';
 import { ladderCharacteristicOmega, realizeFdnr, realizeLadder, type RealizationMethod } from '../../src/substitution/index';
 import { roundToSignificant } from '../../src/substitution/gic-choices';
-import { ladderElements } from '../../src/transform/index';
+import { element, ladderElements, type NetworkLadder } from '../../src/transform/index';
 import { circuitTransferFunction, expectExactRealization, expectPartsMatchCircuit } from './helpers';
 import { FAMILIES, MIN_ORDER, transformedLadder, type Family, type ResponseType } from './ladders';
 
@@ -96,4 +96,27 @@ describe('GIC-embedding route: every response type', () => {
       }
     });
   }
+});
+
+describe('GIC embedding: converters only where inductors meet other elements', () => {
+  it('nodes joined by inductors alone stay inside the resistor network; shared nodes share one converter', () => {
+    // in -Rs- n1 -L1- n2 -L2- n3(out), C3 at n3, shunt arm L4 + L5 in series at n1, load Rl:
+    // n2 and the L4-L5 junction touch inductors only; n1 and n3 need a converter each (n1 serves L1 and L4).
+    const L = (v: number, o: string) => element('L', v, o);
+    const ladder: NetworkLadder = {
+      source: element('R', 1000, 'Rs'),
+      load: element('R', 1000, 'Rl'),
+      branches: [
+        { placement: 'shunt', network: { kind: 'series', parts: [L(0.02, 'L4'), L(0.03, 'L5')] } },
+        { placement: 'series', network: L(0.05, 'L1') },
+        { placement: 'series', network: L(0.01, 'L2') },
+        { placement: 'shunt', network: element('C', '1e-7', 'C3') },
+      ],
+    };
+    const r = realizeLadder(ladder, { method: 'gic-embedding', capacitorF: CAP });
+    expectExactRealization(r);
+    const converters = [...new Set(r.parts.filter((p) => p.role.kind === 'gic').map((p) => p.role.gic))].sort();
+    expect(converters).toEqual(['X_n1', 'X_out']);
+    expect(r.parts.find((p) => p.role.gic === 'X_n1')!.role.realises).toBe('L4,L1');
+  });
 });
