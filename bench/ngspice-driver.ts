@@ -1,6 +1,7 @@
 /**
  * Runs ngspice in batch mode (`ngspice -b`) on a netlist with a `.control` script for the benchmark,
- * and reads back what the script wrote and what ngspice reported about its own time.
+ * and reads back what the script wrote, what ngspice reported about its own time, and the process's
+ * wall and CPU time (bash's `time`; needs bash).
  *
  * ngspice's own timings come from its `rusage` command (ngspice manual, "rusage: Resource usage"):
  * `rusage acTime` prints "AC analysis time = x" (seconds, cumulative over every `ac` run of the loaded
@@ -20,8 +21,10 @@ const NGSPICE = process.env.NGSPICE ?? 'ngspice';
 const RUN_TIMEOUT_MS = 300_000;
 
 export interface NgspiceRun {
-  /** Wall time of the whole `ngspice -b` process, spawn to exit (ms), measured by the caller's clock. */
+  /** Wall time of the whole `ngspice -b` process (ms), from bash's `time` (start to exit, millisecond resolution). */
   readonly wallMs: number;
+  /** CPU time (user + system) of the ngspice process (ms), from bash's `time` (the children's rusage). */
+  readonly cpuMs: number;
   /** stdout and stderr. */
   readonly log: string;
   /** Contents of the files the script was asked to leave, by name. */
@@ -51,12 +54,16 @@ export function runNgspiceScript(netlist: string, control: readonly string[], ou
   const dir = mkdtempSync(join(tmpdir(), 'gicladder-bench-'));
   try {
     writeFileSync(join(dir, 'circuit.cir'), text);
-    const t0 = performance.now();
-    const r = spawnSync(NGSPICE, ['-b', 'circuit.cir'], { cwd: dir, encoding: 'utf8', timeout: RUN_TIMEOUT_MS, maxBuffer: 1 << 28 });
-    const wallMs = performance.now() - t0;
-    const log = `${r.stdout ?? ''}${r.stderr ?? ''}`;
-    if (r.error) throw new NgspiceBenchError(`ngspice could not run: ${r.error.message}`, log);
-    if (r.status !== 0) throw new NgspiceBenchError(`ngspice exited with status ${r.status}`, log);
+    // bash's `time` keyword reports the real, user and system time of the ngspice process alone
+    const r = spawnSync('bash', ['-c', 'TIMEFORMAT="TIMES %3R %3U %3S"; time "$0" -b circuit.cir > ngspice.log 2>&1', NGSPICE], { cwd: dir, encoding: 'utf8', timeout: RUN_TIMEOUT_MS });
+    const logPath = join(dir, 'ngspice.log');
+    const log = existsSync(logPath) ? readFileSync(logPath, 'utf8') : '';
+    if (r.error) throw new NgspiceBenchError(`ngspice could not run: ${r.error.message}`, `${log}${r.stderr ?? ''}`);
+    if (r.status !== 0) throw new NgspiceBenchError(`ngspice exited with status ${r.status}`, `${log}${r.stderr ?? ''}`);
+    const times = /TIMES ([0-9.]+) ([0-9.]+) ([0-9.]+)/.exec(r.stderr ?? '');
+    if (!times) throw new NgspiceBenchError('no process times from bash', `${log}${r.stderr ?? ''}`);
+    const wallMs = 1000 * Number(times[1]);
+    const cpuMs = 1000 * (Number(times[2]) + Number(times[3]));
     if (/^\s*error/im.test(log)) throw new NgspiceBenchError('ngspice reported an error', log);
     if (/^\s*warning/im.test(log)) throw new NgspiceBenchError('ngspice reported a warning', log);
     const files: Record<string, string> = {};
@@ -65,7 +72,7 @@ export function runNgspiceScript(netlist: string, control: readonly string[], ou
       if (!existsSync(path)) throw new NgspiceBenchError(`ngspice wrote no ${name}`, log);
       files[name] = readFileSync(path, 'utf8');
     }
-    return { wallMs, log, files };
+    return { wallMs, cpuMs, log, files };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
