@@ -5,3 +5,7 @@ export * from './c-literals';
 export * from './fixed-point';
 export * from './design-hash';
 export * from './c-header';
+export * from './svg/plot-model';
+export * from './svg/ticks';
+export * from './svg/render-svg';
+export * from './svg/plots';
