@@ -22,7 +22,10 @@ import type { Circuit } from '../netlist/index';
 import { circuitToJson } from './circuit-json';
 import { monteCarloDriver, resolveMonteCarloOptions, TrialModel, type BlockRequest, type BlockResult, type MonteCarloOptions, type MonteCarloResult } from './monte-carlo';
 import type { ToleranceSpec } from './spec';
-import type { WorkerReply, WorkerSetup } from './monte-carlo-worker.node';
+import { READY_ID, type WorkerReply, type WorkerRequest, type WorkerSetup } from './worker-protocol';
+
+/** Distributes Omit over the union of request kinds. */
+type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
 
 export interface ParallelMonteCarloOptions extends MonteCarloOptions {
   /** Worker threads (default: os.availableParallelism()). */
@@ -36,26 +39,31 @@ export interface ParallelMonteCarloOptions extends MonteCarloOptions {
  * extension .ts"), so the worker instead evaluates a two-line CommonJS bootstrap that imports tsx's
  * ESM API (`tsImport`, resolved through tsx's package.json exports) and loads the .ts entry with it.
  */
-export function startWorker(setup: unknown): Worker {
+export function startWorker(workerData: unknown = null): Worker {
   const here = import.meta.url;
-  if (!/\.(c|m)?ts$/.test(new URL(here).pathname)) return new Worker(new URL('./monte-carlo-worker.node.js', here), { workerData: setup });
+  if (!/\.(c|m)?ts$/.test(new URL(here).pathname)) return new Worker(new URL('./monte-carlo-worker.node.js', here), { workerData });
   const require = createRequire(here);
   const pkgPath = require.resolve('tsx/package.json');
   const pkg = JSON.parse(readFileSync(pkgPath, 'utf8')) as { exports: Record<string, { import: { default: string } }> };
   const api = pathToFileURL(join(dirname(pkgPath), pkg.exports['./esm/api'].import.default)).href;
   const entry = new URL('./monte-carlo-worker.node.ts', here).href;
   const bootstrap = `import(${JSON.stringify(api)}).then((m) => m.tsImport(${JSON.stringify(entry)}, ${JSON.stringify(here)}));`;
-  return new Worker(bootstrap, { eval: true, workerData: setup });
+  return new Worker(bootstrap, { eval: true, workerData });
 }
 
-class WorkerPool {
-  private readonly workers: Worker[];
+/**
+ * A pool of Monte Carlo worker threads, started once and reused across runs (starting a worker costs
+ * tens of milliseconds from the built package, about a second from TypeScript sources). Runs are
+ * served one at a time, in the order they are asked for.
+ */
+export class MonteCarloWorkerPool {
   private readonly pending = new Map<number, { resolve: (r: BlockResult[]) => void; reject: (e: Error) => void }>();
   private nextId = 0;
+  private queue: Promise<unknown> = Promise.resolve();
+  private failure: Error | null = null;
 
-  constructor(count: number, setup: WorkerSetup) {
-    this.workers = Array.from({ length: count }, () => {
-      const w = startWorker(setup);
+  private constructor(private readonly workers: Worker[]) {
+    for (const w of workers) {
       w.on('message', (m: WorkerReply) => {
         const p = this.pending.get(m.id);
         if (!p) return;
@@ -67,27 +75,78 @@ class WorkerPool {
       w.on('exit', (code) => {
         if (code !== 0) this.failAll(new Error(`Monte Carlo worker exited with code ${code}`));
       });
-      return w;
-    });
+    }
+  }
+
+  /** Starts `workers` threads (default os.availableParallelism()) and waits until each has loaded its code. */
+  static async start(workers: number = availableParallelism()): Promise<MonteCarloWorkerPool> {
+    requireInteger(workers, 'workers', 1, 256);
+    const list = Array.from({ length: workers }, () => startWorker(null));
+    // each worker posts READY_ID once its module has been evaluated (its message listener is attached)
+    await Promise.all(list.map((w) => new Promise<void>((resolve, reject) => {
+      const onMessage = (m: WorkerReply) => {
+        if (m.id !== READY_ID) return;
+        w.off('message', onMessage);
+        resolve();
+      };
+      w.on('message', onMessage);
+      w.once('error', reject);
+    })));
+    return new MonteCarloWorkerPool(list);
+  }
+
+  get size(): number {
+    return this.workers.length;
   }
 
   private failAll(e: Error): void {
+    this.failure = e;
     for (const p of this.pending.values()) p.reject(e);
     this.pending.clear();
   }
 
+  private ask(w: number, msg: WithoutId<WorkerRequest>): Promise<BlockResult[]> {
+    if (this.failure) return Promise.reject(this.failure);
+    const id = this.nextId++;
+    const p = new Promise<BlockResult[]>((resolve, reject) => this.pending.set(id, { resolve, reject }));
+    this.workers[w].postMessage({ ...msg, id });
+    return p;
+  }
+
   /** Splits the requests into contiguous shares, one per worker, and gathers every result. */
-  async run(requests: readonly BlockRequest[]): Promise<BlockResult[]> {
+  private async blocks(requests: readonly BlockRequest[]): Promise<BlockResult[]> {
     const n = this.workers.length;
     const share = Math.ceil(requests.length / n);
     const jobs: Promise<BlockResult[]>[] = [];
-    for (let w = 0; w < n && w * share < requests.length; w++) {
-      const id = this.nextId++;
-      const part = requests.slice(w * share, (w + 1) * share);
-      jobs.push(new Promise((resolve, reject) => this.pending.set(id, { resolve, reject })));
-      this.workers[w].postMessage({ id, requests: part });
-    }
+    for (let w = 0; w < n && w * share < requests.length; w++) jobs.push(this.ask(w, { type: 'blocks', requests: requests.slice(w * share, (w + 1) * share) }));
     return (await Promise.all(jobs)).flat();
+  }
+
+  /** {@link runMonteCarlo} on the pool's threads: the same result, byte for byte, for the same seed. */
+  run(circuit: Circuit, transfer: TransferSpec, spec: ToleranceSpec, options: MonteCarloOptions): Promise<MonteCarloResult> {
+    const job = this.queue.then(() => this.runNow(circuit, transfer, spec, options));
+    this.queue = job.catch(() => undefined);
+    return job;
+  }
+
+  private async runNow(circuit: Circuit, transfer: TransferSpec, spec: ToleranceSpec, options: MonteCarloOptions): Promise<MonteCarloResult> {
+    const config = resolveMonteCarloOptions(options);
+    if (typeof transfer !== 'object' || transfer === null) throw new InvalidInputError('INVALID_ARGUMENT', 'transfer', transfer, 'must be { input, output }');
+    // validates the spec and gives the nominal response before any worker is asked
+    const model = new TrialModel(circuit, transfer, spec, config.frequencyHz, config.mask);
+    const setup: WorkerSetup = {
+      circuit: circuitToJson(circuit),
+      transfer: { input: transfer.input, output: transfer.output },
+      spec,
+      frequencyHz: config.frequencyHz,
+      mask: config.mask,
+      seed: config.seed,
+    };
+    await Promise.all(this.workers.map((_, w) => this.ask(w, { type: 'setup', setup })));
+    const driver = monteCarloDriver(config, { gainDb: model.nominalGainDb, phaseDeg: model.nominalPhaseDeg }, options.onProgress);
+    let step = driver.next();
+    while (!step.done) step = driver.next(await this.blocks(step.value));
+    return step.value;
   }
 
   async close(): Promise<void> {
@@ -96,7 +155,8 @@ class WorkerPool {
 }
 
 /**
- * {@link runMonteCarlo} over worker threads: the same result, byte for byte, for the same seed.
+ * {@link runMonteCarlo} over worker threads: the same result, byte for byte, for the same seed. Starts
+ * and stops a {@link MonteCarloWorkerPool}; keep a pool for repeated runs.
  *
  * @example
  * const r = await runMonteCarloParallel(circuit, { input: 'in', output: 'out' }, spec, { frequenciesHz, trials: 100_000, seed: 1, workers: 2 });
@@ -107,24 +167,11 @@ export async function runMonteCarloParallel(
   spec: ToleranceSpec,
   options: ParallelMonteCarloOptions,
 ): Promise<MonteCarloResult> {
-  const config = resolveMonteCarloOptions(options);
+  resolveMonteCarloOptions(options); // fail before starting threads
   const workers = requireInteger(options.workers ?? availableParallelism(), 'options.workers', 1, 256);
-  // validates the spec and gives the nominal response before any thread starts
-  const model = new TrialModel(circuit, transfer, spec, config.frequencyHz, config.mask);
-  if (typeof transfer !== 'object' || transfer === null) throw new InvalidInputError('INVALID_ARGUMENT', 'transfer', transfer, 'must be { input, output }');
-  const pool = new WorkerPool(workers, {
-    circuit: circuitToJson(circuit),
-    transfer: { input: transfer.input, output: transfer.output },
-    spec,
-    frequencyHz: config.frequencyHz,
-    mask: config.mask,
-    seed: config.seed,
-  });
+  const pool = await MonteCarloWorkerPool.start(workers);
   try {
-    const driver = monteCarloDriver(config, { gainDb: model.nominalGainDb, phaseDeg: model.nominalPhaseDeg }, options.onProgress);
-    let step = driver.next();
-    while (!step.done) step = driver.next(await pool.run(step.value));
-    return step.value;
+    return await pool.run(circuit, transfer, spec, options);
   } finally {
     await pool.close();
   }

@@ -1,6 +1,6 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runMonteCarlo } from '../../src/tolerance/monte-carlo';
-import { runMonteCarloParallel } from '../../src/tolerance/parallel.node';
+import { MonteCarloWorkerPool, runMonteCarloParallel } from '../../src/tolerance/parallel.node';
 import type { ToleranceSpec } from '../../src/tolerance/spec';
 import { gicFdnrLowpass } from '../helpers/gic-circuits';
 import { resultJson } from './result-json';
@@ -17,24 +17,38 @@ const spec: ToleranceSpec = {
 };
 const mask = { passband: [{ fromHz: 0, toHz: 800, minGainDb: -7.5, maxGainDb: -5.5 }], stopband: [{ fromHz: 3000, toHz: 10_000, maxGainDb: -30 }] };
 
-describe('runMonteCarloParallel (2 worker threads, started through the tsx loader from the TypeScript sources)', () => {
+describe('parallel Monte Carlo (2 worker threads, loaded from the TypeScript sources through tsx)', () => {
+  let pool: MonteCarloWorkerPool;
+  beforeAll(async () => {
+    pool = await MonteCarloWorkerPool.start(2);
+  });
+  afterAll(async () => {
+    await pool.close();
+  });
+
   it('gives a byte-identical result to the serial run: histogram quantiles, mask yield, uneven last block', async () => {
     const options = { frequenciesHz: [100, 800, 1000, 3000, 5000], trials: 12_000 + 321, seed: 77, blockSize: 512, exactQuantileLimit: 0, mask };
     const serial = runMonteCarlo(circuit, transfer, spec, options);
     const progress: number[] = [];
-    const parallel = await runMonteCarloParallel(circuit, transfer, spec, { ...options, workers: 2, onProgress: (p) => progress.push(p.completedTrials) });
+    const parallel = await pool.run(circuit, transfer, spec, { ...options, onProgress: (p) => progress.push(p.completedTrials) });
     expect(serial.quantileMethod).toBe('histogram');
     expect(resultJson(parallel)).toBe(resultJson(serial));
     expect(progress.at(-1)).toBe(options.trials);
     expect(serial.yield!.passed).toBeGreaterThan(0);
   });
 
-  it('gives a byte-identical result in exact-quantile mode and with adaptive stopping', async () => {
+  it('reports a bad specification from the main thread with a typed error, and the pool stays usable', async () => {
+    await expect(pool.run(circuit, transfer, { parts: [{ element: 'nope', tolerance: 0.01 }] }, { frequenciesHz: [1], trials: 10, seed: 1 })).rejects.toMatchObject({ code: 'INVALID_ARGUMENT', path: 'spec.parts[0].element' });
+    const o = { frequenciesHz: [1000], trials: 1500, seed: 2 };
+    expect(resultJson(await pool.run(circuit, transfer, spec, o))).toBe(resultJson(runMonteCarlo(circuit, transfer, spec, o)));
+  });
+
+  it('gives a byte-identical result in exact-quantile mode (a pool started for the one run) and with adaptive stopping (the shared pool, reused)', async () => {
     const small = { frequenciesHz: [500, 1200], trials: 3000, seed: -5 };
     expect(resultJson(await runMonteCarloParallel(circuit, transfer, spec, { ...small, workers: 2 }))).toBe(resultJson(runMonteCarlo(circuit, transfer, spec, small)));
     const adaptive = { frequenciesHz: [1000], trials: 200_000, seed: 3, adaptive: { significantDigits: 1 } };
     const s = runMonteCarlo(circuit, transfer, spec, adaptive);
     expect(s.adaptive!.converged).toBe(true);
-    expect(resultJson(await runMonteCarloParallel(circuit, transfer, spec, { ...adaptive, workers: 2 }))).toBe(resultJson(s));
+    expect(resultJson(await pool.run(circuit, transfer, spec, adaptive))).toBe(resultJson(s));
   });
 });
