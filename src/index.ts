@@ -11,4 +11,5 @@ export * from './approximation/index';
 export * from './ladder/index';
 export * from './transform/index';
 export * from './converter/index';
+export * from './substitution/index';
 export * from './export/index';
