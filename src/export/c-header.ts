@@ -188,7 +188,7 @@ export function renderCHeader(model: HeaderModel): string {
 
   out(
     '/* Analog transfer function, s in rad/s: H(s) = prod_k (n0 + n1 s + n2 s^2) / (d0 + d1 s + d2 s^2),',
-    ' * rows {n0, n1, n2, d0, d1, d2}; the overall gain is in the first row. */',
+    ' * rows {n0, n1, n2, d0, d1, d2}; the overall gain is folded into the numerators. */',
     `#define ${P}_ANALOG_SECTION_COUNT ${analog.length}`,
   );
   if (analog.length > 0) {
@@ -205,7 +205,7 @@ export function renderCHeader(model: HeaderModel): string {
     if (sections.length === 0) throw new InvalidInputError('OUT_OF_RANGE', 'digital.sections', sections, 'needs at least one section');
     out(
       '/* Digital sections (bilinear transform): H(z) = prod_k (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2),',
-      ' * rows {b0, b1, b2, a1, a2} (a0 = 1); the overall gain is in the first row. */',
+      ' * rows {b0, b1, b2, a1, a2} (a0 = 1); the overall gain is folded into the numerators. */',
       `#define ${P}_SAMPLE_RATE_HZ ${num(fs, 'digital.sampleRateHz')}`,
     );
     if (d.prewarpHz !== undefined) out(`#define ${P}_PREWARP_HZ ${num(requirePositive(d.prewarpHz, 'digital.prewarpHz'), 'digital.prewarpHz')}`);

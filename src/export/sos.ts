@@ -22,7 +22,8 @@
  * denominator: d2 = 1 for a pole pair, d1 = 1 and d2 = 0 for a single real pole.
  */
 import type { Complex } from '../algebra/complex';
-import type { AnalogSection } from '../analysis/factored-response';
+import type { RationalFunction } from '../algebra/rational-function';
+import { toFloatTransferFunction, type AnalogSection } from '../analysis/factored-response';
 import { InvalidInputError, requireFinite, requireOneOf } from '../errors';
 
 export type { AnalogSection };
@@ -71,6 +72,16 @@ export function zpkToAnalogSections(zpk: ZpkInput, options: AnalogSectionOptions
     const k = spread ? (i === 0 ? Math.sign(gain) : 1) * Math.abs(gain) ** (1 / pairs.length) : i === 0 ? gain : 1;
     return { n0: n0 * k + 0, n1: n1 * k + 0, n2: n2 * k + 0, d0, d1, d2 }; // + 0: never -0
   });
+}
+
+/**
+ * Analog sections of an exact H(s) (e.g. the realised circuit's transfer function): its zeros, poles and
+ * gain come from src/analysis's toFloatTransferFunction (that stage's documented float boundary:
+ * Aberth roots with exact conjugate pairs), then {@link zpkToAnalogSections} pairs and orders them.
+ */
+export function analogSectionsOfRational(h: RationalFunction, options: AnalogSectionOptions = {}): AnalogSection[] {
+  const f = toFloatTransferFunction(h);
+  return zpkToAnalogSections({ zeros: f.zeros, poles: f.poles, gain: f.gain }, options);
 }
 
 /** Digital second-order sections (a0 = 1) of H(z); see the module comment. */

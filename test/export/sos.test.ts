@@ -7,7 +7,8 @@
 import { describe, expect, it } from 'vitest';
 import fixture from '../fixtures/scipy/digital-sections.json';
 import { bilinearZpk, prewarpScale } from '../../src/export/bilinear';
-import { zpkToAnalogSections, zpkToDigitalSections, type DigitalSection } from '../../src/export/sos';
+import { analogSectionsOfRational, zpkToAnalogSections, zpkToDigitalSections, type DigitalSection } from '../../src/export/sos';
+import { RationalFunction } from '../../src/algebra/rational-function';
 import type { AnalogSection } from '../../src/analysis/factored-response';
 import { cDiv, cMul, type Complex } from '../../src/algebra/complex';
 import { evaluateZpk } from '../../src/approximation/zpk';
@@ -121,6 +122,20 @@ describe('laws (no reference needed)', () => {
           expect(Math.hypot(got.re - want.re, got.im - want.im)).toBeLessThanOrEqual(1e-12 * Math.hypot(want.re, want.im));
         }
       }
+    }
+  });
+
+  it('sections of an exact H(s) multiply back to it (analysis float boundary, then pairing)', () => {
+    // H(s) = 2 (s^2 + 4) / ((s + 3)(s^2 + s/2 + 1)): a notch pair, a real pole and a Q = 2 pair
+    const h = RationalFunction.fromCoefficients([8, 0, 2], [3, 2.5, 3.5, 1]);
+    const sections = analogSectionsOfRational(h);
+    expect(sections).toHaveLength(2);
+    expect(sections[1].d1).toBeCloseTo(0.5, 14); // the high-Q pair is last
+    for (const w of [0.1, 1, 2, 2.5, 10]) {
+      const want = h.evaluateComplex({ re: 0, im: w });
+      const got = analogCascade(sections, { re: 0, im: w });
+      // Aberth roots of a cubic are accurate to a few ulps; 1e-13 relative (absolute near the zero at w = 2)
+      expect(Math.hypot(got.re - want.re, got.im - want.im)).toBeLessThanOrEqual(1e-13 * Math.max(1, Math.hypot(want.re, want.im)));
     }
   });
 
