@@ -3,6 +3,7 @@
  * (see DESIGN.md). Stage folders are listed in pipeline order.
  */
 export * from './errors';
+export * from './version';
 export * from './algebra/index';
 export * from './units/index';
 export * from './netlist/index';

@@ -49,3 +49,11 @@ describe('package structure', () => {
     expect(offenders).toEqual([]);
   });
 });
+
+describe('version', () => {
+  it('src/version.ts matches package.json', async () => {
+    const { VERSION } = await import('../src/version');
+    const pkg = JSON.parse(readFileSync(join(__dirname, '..', 'package.json'), 'utf8'));
+    expect(VERSION).toBe(pkg.version);
+  });
+});
