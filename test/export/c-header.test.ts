@@ -392,6 +392,7 @@ function compileAndRun(header: string, source: string, cxx: boolean): string[] {
       ? ['-x', 'c++', '-std=c++11', '-Wall', '-Wextra', '-Werror', '-o', exe, join(dir, 'main.c')]
       : ['-std=c99', '-Wall', '-Wextra', '-Wpedantic', '-Werror', '-o', exe, join(dir, 'main.c')];
     const cc = spawnSync(cxx ? 'g++' : 'gcc', args, { encoding: 'utf8', timeout: 60_000 });
+    if (cc.error) throw new Error(`${cxx ? 'g++' : 'gcc'} could not be run (CI=true needs it installed): ${cc.error.message}`);
     if (cc.status !== 0) throw new Error(`${cxx ? 'g++' : 'gcc'} failed:\n${cc.stderr}\n--- header ---\n${header}`);
     const run = spawnSync(exe, [], { encoding: 'utf8', timeout: 30_000 });
     if (run.status !== 0) throw new Error(`program failed: ${run.stderr}`);
