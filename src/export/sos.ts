@@ -193,9 +193,11 @@ function pairRoots(zeros: Root[], poles: Root[], count: number, domain: 'analog'
     const p1 = takeWorst(poles, () => true);
     const realPolesLeft = poles.filter(isReal).length;
     if (isReal(p1) && realPolesLeft === 0) {
-      // the last real pole: with one real zero (digital sections pair it with the origin roots padded in)
-      let i = nearest(p1, 'real');
-      if (i < 0 && domain === 'analog') i = nearest(p1, 'any');
+      // the last real pole: with the nearest real zero if there is one (digital filters always have one:
+      // the padding); an analog one without gets none, so every section stays proper (scipy would fail
+      // here; the complex pole pairs left can take the complex zeros left, since a proper H with an odd
+      // number of poles and only complex zeros has fewer zeros than poles)
+      const i = nearest(p1, 'real');
       out[si] = { z: i >= 0 ? both(take(i)) : [], p: [p1] };
       continue;
     }

@@ -179,6 +179,21 @@ describe('laws (no reference needed)', () => {
     expect(d[0].b2).toBeGreaterThan(0);
   });
 
+  it('a real pole picked first, with only complex zeros left, gets no zeros: every section stays proper', () => {
+    // the real pole -0.1 is closest to the j w axis, so it is taken first; the zeros +-2j go with the pair
+    const zpk = { zeros: [{ re: 0, im: -2 }, { re: 0, im: 2 }], poles: [{ re: -0.5, im: -1 }, { re: -0.5, im: 1 }, { re: -0.1, im: 0 }], gain: 3 };
+    const sections = zpkToAnalogSections(zpk);
+    expect(sections).toHaveLength(2);
+    expect(sections[1]).toEqual({ n0: 1, n1: 0, n2: 0, d0: 0.1, d1: 1, d2: 0 });
+    expect(sections[0]).toEqual({ n0: 12, n1: 0, n2: 3, d0: 1.25, d1: 1, d2: 1 });
+    for (const w of [0.3, 1, 5]) {
+      const s = { re: 0, im: w };
+      const want = evaluateZpk(zpk, s);
+      const got = analogCascade(sections, s);
+      expect(Math.hypot(got.re - want.re, got.im - want.im)).toBeLessThanOrEqual(1e-14 * Math.hypot(want.re, want.im));
+    }
+  });
+
   it('a constant gives one trivial section', () => {
     expect(zpkToAnalogSections({ zeros: [], poles: [], gain: 2 })).toEqual([{ n0: 2, n1: 0, n2: 0, d0: 1, d1: 0, d2: 0 }]);
     expect(zpkToDigitalSections({ zeros: [], poles: [], gain: 2 })).toEqual([{ b0: 2, b1: 0, b2: 0, a1: 0, a2: 0 }]);
