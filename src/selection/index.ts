@@ -1,0 +1,3 @@
+/** The selection stage: preferred values (IEC 60063 E-series) for a realised circuit. */
+export * from './selected-part';
+export { selectParts } from './select-parts';
