@@ -46,7 +46,16 @@ export function prewarpScale(sampleRateHz: number, prewarpHz?: number): number {
   return (fs2 / wp) * Math.tan(wp / fs2); // Eq. (7.26) solved for the analog frequency, divided by wp
 }
 
-/** Bilinear transform (with optional prewarp) of a proper analog H(s), roots in rad/s. */
+/**
+ * Bilinear transform (with optional prewarp) of a proper analog H(s), roots in rad/s.
+ *
+ * @example
+ * // a first-order lowpass at 1 kHz, 8 kHz sampling, prewarped at 1 kHz:
+ * // H(z) = (1 - 1/sqrt 2)(1 + z^-1) / (1 + (1 - sqrt 2) z^-1)
+ * const wc = 2 * Math.PI * 1000;
+ * const [s] = zpkToDigitalSections(bilinearZpk({ zeros: [], poles: [{ re: -wc, im: 0 }], gain: wc }, 8000, { prewarpHz: 1000 }));
+ * [s.b0, s.b1, s.a1]; // about [0.2929, 0.2929, -0.4142]
+ */
 export function bilinearZpk(analog: ZpkInput, sampleRateHz: number, options: BilinearOptions = {}): DigitalZpk {
   const c = prewarpScale(sampleRateHz, options.prewarpHz);
   if (!Array.isArray(analog?.zeros) || !Array.isArray(analog?.poles) || typeof analog.gain !== 'number') {

@@ -101,7 +101,15 @@ export function headerIdentifiers(model: Pick<HeaderModel, 'name' | 'prefix'>): 
   return { prefix, guard: `${guard}_H` };
 }
 
-/** The header text (see the module comment). Throws InvalidInputError on a bad model (path names the field). */
+/**
+ * The header text (see the module comment). Throws InvalidInputError on a bad model (path names the field).
+ *
+ * @example
+ * const h = renderCHeader({ name: 'demo', prefix: 'flt', libraryVersion: '0.1.0', designHash: hashDesign({ name: 'demo' }),
+ *   floatType: 'float', parts: [{ name: 'R1', valueSi: 4700, unit: 'ohm' }],
+ *   analogSections: [{ n0: 1, n1: 0, n2: 0, d0: 1, d1: 1e-4, d2: 0 }] });
+ * h.includes('static const float FLT_PART_VALUES_SI[FLT_PART_COUNT] = { 4700.0f };'); // true
+ */
 export function renderCHeader(model: HeaderModel): string {
   if (typeof model !== 'object' || model === null) throw new InvalidInputError('INVALID_ARGUMENT', 'model', model, 'must be a HeaderModel');
   for (const key of ['name', 'prefix', 'libraryVersion', 'designHash'] as const) requireText(model[key], key);

@@ -39,7 +39,14 @@ export function toCTypeValue(x: number, type: CFloatType): number {
   return type === 'float' ? Math.fround(x) : x;
 }
 
-/** A valid C floating constant for `x` in the target type (see the module comment); `path` names the field in errors. */
+/**
+ * A valid C floating constant for `x` in the target type (see the module comment); `path` names the field in errors.
+ *
+ * @example
+ * formatCFloat(5, 'float'); // '5.0f'
+ * formatCFloat(0.1, 'double'); // '0.10000000000000001'
+ * formatCFloat(12, 'double', 'hex'); // '0x1.8p+3'
+ */
 export function formatCFloat(x: number, type: CFloatType, format: CNumberFormat = 'decimal', path = 'value'): string {
   if (typeof x !== 'number' || !Number.isFinite(x)) {
     throw new InvalidInputError('INVALID_NUMBER', path, x, 'a C header must never contain NaN or Infinity');
@@ -102,7 +109,12 @@ export function formatCInteger(n: number, bits: 16 | 32, path = 'value'): string
   return `${n + 0}`; // + 0: -0 prints as 0
 }
 
-/** A C string literal of `text` (UTF-8 bytes), see the module comment. */
+/**
+ * A C string literal of `text` (UTF-8 bytes), see the module comment.
+ *
+ * @example
+ * cStringLiteral('10 \u00b5F "x"??'); // '"10 \\302\\265F \\"x\\"\\?\\?"'
+ */
 export function cStringLiteral(text: string): string {
   let out = '"';
   for (const byte of new TextEncoder().encode(text)) {
@@ -153,6 +165,9 @@ const RESERVED_PREFIX = /^(E[0-9A-Z]|SIG_?[A-Z]|LC_[A-Z])/;
  * leading or trailing `_` (so no `_X` or `__` reserved name), a leading digit gets `N`, upper case when
  * `upper` (macro and constant names), keywords and reserved library prefixes get a `G_` prefix, cut to
  * `maxLength`; empty text gives `fallback`.
+ *
+ * @example
+ * sanitiseCIdentifier('shaker lowpass #2'); // 'SHAKER_LOWPASS_2'
  */
 export function sanitiseCIdentifier(text: string, options: { upper?: boolean; fallback?: string; maxLength?: number } = {}): string {
   const { upper = true, fallback = 'GICLADDER', maxLength = MAX_C_IDENTIFIER_LENGTH } = options;

@@ -10,7 +10,12 @@ const FNV64_OFFSET_BASIS = 0xcbf29ce484222325n;
 const FNV64_PRIME = 0x100000001b3n;
 const MASK_64 = (1n << 64n) - 1n;
 
-/** FNV-1a 64 of the UTF-8 bytes of `text`, as 16 lowercase hex digits. */
+/**
+ * FNV-1a 64 of the UTF-8 bytes of `text`, as 16 lowercase hex digits.
+ *
+ * @example
+ * fnv1a64('a'); // 'af63dc4c8601ec8c'
+ */
 export function fnv1a64(text: string): string {
   let h = FNV64_OFFSET_BASIS;
   for (const byte of new TextEncoder().encode(text)) {

@@ -56,7 +56,13 @@ export function px(v: number): string {
   return s === '-0.00' ? '0.00' : s;
 }
 
-/** The SVG text of the plot (see the module comment). */
+/**
+ * The SVG text of the plot (see the module comment).
+ *
+ * @example
+ * const svg = renderPlotSvg(gainPlot({ frequencyHz: [10, 100, 1000], gainDb: [0, -3, -20] }));
+ * svg.includes('>Gain (dB)<'); // true
+ */
 export function renderPlotSvg(model: PlotModel): string {
   if (typeof model !== 'object' || model === null || !Array.isArray(model.series)) {
     throw new InvalidInputError('INVALID_ARGUMENT', 'plot', model, 'must be a PlotModel with a series array');
