@@ -97,7 +97,7 @@ export function renderPlotSvg(model: PlotModel): string {
     `<title>${escapeXml(model.title)}</title>`,
     `<rect x="0" y="0" width="${width}" height="${height}" fill="#ffffff"/>`,
     `<defs><clipPath id="plot-area"><rect x="${px(left)}" y="${px(top)}" width="${px(plotW)}" height="${px(plotH)}"/></clipPath></defs>`,
-    `<text x="${px(left + plotW / 2)}" y="${px(top - 18)}" text-anchor="middle" font-size="17" font-weight="bold">${escapeXml(model.title)}</text>`,
+    `<text x="${px(left + plotW / 2)}" y="${px(top - 18)}" text-anchor="middle" font-size="17" font-weight="bold">${escapeXml(shorten(model.title, MAX_TITLE_CHARS))}</text>`,
   );
 
   // grid and tick labels
@@ -227,9 +227,11 @@ function legend(model: PlotModel, x0: number, y0: number): string[] {
 
 /** Legend labels are cut so they stay inside the legend column. */
 const MAX_LEGEND_CHARS = 26;
-function shorten(text: string): string {
+/** Titles are cut so they stay above the plot area (17 px bold, about 9 px a character). */
+const MAX_TITLE_CHARS = 64;
+function shorten(text: string, max = MAX_LEGEND_CHARS): string {
   const chars = [...String(text)];
-  return chars.length > MAX_LEGEND_CHARS ? `${chars.slice(0, MAX_LEGEND_CHARS - 1).join('')}\u2026` : chars.join('');
+  return chars.length > max ? `${chars.slice(0, max - 1).join('')}\u2026` : chars.join('');
 }
 
 function colorOf(color: string, path: string): string {

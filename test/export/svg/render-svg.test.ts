@@ -104,6 +104,23 @@ describe('renderPlotSvg', () => {
     expect(renderPlotSvg(s)).toContain('Clipping 3 V');
   });
 
+  it('a linear x axis, markers without error bars, long text cut to fit', () => {
+    const svg = renderPlotSvg({
+      title: 'T'.repeat(100),
+      xLabel: 'Time (s)',
+      yLabel: 'Output (V)',
+      xScale: 'linear',
+      series: [{ label: 'L'.repeat(40), x: [0, 0.5, 1], y: [0, 1, 0], style: { dash: 'dotted', widthPx: 1.5 } }],
+      markers: [{ label: 'samples', points: [{ x: 0.25, y: 0.5 }] }],
+    });
+    expect(svg).toContain('>0.5<'); // linear x tick labels
+    expect(svg.match(/<path /g)?.length).toBe(1); // no error bar without low/high: only the legend swatch
+    expect(svg).toContain(`>${'T'.repeat(63)}&#8230;<`);
+    expect(svg).toContain(`>${'L'.repeat(25)}&#8230;<`);
+    expect(svg).toContain('stroke-dasharray="2 4"');
+    expect(svg.match(/<circle /g)?.length).toBe(2); // the point and its legend swatch
+  });
+
   it('bad input throws typed errors naming the field', () => {
     const base: PlotModel = { title: 't', xLabel: 'x', yLabel: 'y', series: [{ label: 'a', x: [1, 10], y: [0, 1] }] };
     expectInvalidInput(() => renderPlotSvg({ ...base, series: [{ label: 'a', x: [1, 10], y: [0, 1], style: { color: 'red" onload="x' } }] }), 'INVALID_ARGUMENT', 'plot.series[0].style.color');
