@@ -26,7 +26,7 @@ parentPort!.on('message', (msg: WorkerRequest) => {
     if (!model || !streams) throw new Error('blocks requested before setup');
     const m = model;
     const st = streams;
-    const results = msg.requests.map((r) => m.runBlock(r, st.generatorFor(r.block)));
+    const results = m.runBlocks(msg.requests, st);
     const buffers: ArrayBuffer[] = [];
     for (const r of results) {
       for (const a of [r.failuresAt, r.moments.mean, r.moments.m2, r.moments.min, r.moments.max, r.histogram, r.values]) if (a) buffers.push(a.buffer as ArrayBuffer);
