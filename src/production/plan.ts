@@ -1,0 +1,180 @@
+/**
+ * The production-test plan of a design: test points, their nominal gain and phase, their Monte Carlo
+ * distributions, the acceptance limits by the decision rule, and per point the predicted yield, the
+ * false-accept and false-reject probabilities and Cpk; plus the {@link ProductionPlan} that
+ * checkMeasurements reads.
+ *
+ * The distributions come from Monte Carlo boards (boards.ts: the trials of tolerance's runMonteCarlo),
+ * evaluated at the test points; the phase of each board is continued from the nominal unwrapped phase
+ * (the convention of tolerance/monte-carlo.ts). Overall figures: the share of boards whose true
+ * response is inside every tolerance, and the expected share the test accepts (the average over boards
+ * of the product over points of P(accept | true value), measurement errors independent between points).
+ */
+import { InvalidInputError } from '../errors';
+import { maskLimits, type SpecMask } from '../tolerance/yield';
+import type { BoardSample } from './boards';
+import type { PlanTestPoint, ProductionPlan } from './check';
+import type { DecisionRule, MeasurementUncertainty } from './decision-rules';
+import { inInterval } from './interval';
+import { quantityLimits, type LimitSource, type QuantityLimits } from './limits';
+import { acceptanceGivenTrue } from './risk';
+import { automaticTestPoints, explicitTestPoints, type TestPoint } from './test-points';
+
+/** A limit source for planning: 'mask' takes the window from the plan's mask at each point. */
+export type PlanLimitSource = 'mask' | Exclude<LimitSource, { kind: 'mask' }>;
+
+export interface QuantityPlanOptions {
+  readonly source: PlanLimitSource;
+  readonly rule: DecisionRule;
+  readonly uncertainty: MeasurementUncertainty;
+}
+
+export interface ProductionTestOptions {
+  /** 'auto' (default; needs the mask) or explicit frequencies in Hz. */
+  readonly testPoints?: 'auto' | readonly (number | { readonly frequencyHz: number; readonly id?: string })[];
+  readonly mask?: SpecMask;
+  /** Added as a test point (role 'trim'). */
+  readonly trimFrequencyHz?: number;
+  readonly gain: QuantityPlanOptions;
+  /** Phase is tested only when given ('mask' is not a phase source). */
+  readonly phase?: QuantityPlanOptions;
+  readonly interpolation?: ProductionPlan['interpolation'];
+  readonly frequencyTolerance?: number;
+}
+
+export interface TestPointAnalysis extends TestPoint {
+  readonly gain: QuantityLimits;
+  readonly phase: QuantityLimits | null;
+}
+
+export interface PlanDiagnostic {
+  readonly code: 'NO_LIMIT' | 'EMPTY_ACCEPTANCE' | 'UNSOLVED_BOARDS';
+  readonly message: string;
+}
+
+export interface ProductionTestDesign {
+  readonly points: readonly TestPointAnalysis[];
+  /** What checkMeasurements reads. */
+  readonly plan: ProductionPlan;
+  /** Share of boards with every tested quantity inside its tolerance (true values). */
+  readonly conformingShare: number;
+  /** Expected share of boards the test accepts (measurement errors included). */
+  readonly expectedAcceptedShare: number;
+  readonly boards: number;
+  readonly diagnostics: readonly PlanDiagnostic[];
+}
+
+const DEG = 180 / Math.PI;
+
+/** Gain and phase of every board at the frequencies (board-major arrays per point). */
+export function boardResponses(boards: BoardSample, frequenciesHz: readonly number[]): { nominalGainDb: Float64Array; nominalPhaseDeg: Float64Array; gainDb: Float64Array[]; phaseDeg: Float64Array[] } {
+  const e = boards.engine;
+  const m = frequenciesHz.length;
+  boards.restoreNominal();
+  const order = frequenciesHz.map((_, i) => i).sort((a, b) => frequenciesHz[a] - frequenciesHz[b]);
+  const sweep = e.sweep(order.map((i) => frequenciesHz[i]), { nodes: 'none' }); // phase unwrapped upwards in frequency
+  const nominalGainDb = new Float64Array(m);
+  const nominalPhaseDeg = new Float64Array(m);
+  order.forEach((i, k) => {
+    nominalGainDb[i] = sweep.gainDb[k];
+    nominalPhaseDeg[i] = sweep.phaseDeg[k];
+  });
+  const h = new Float64Array(2);
+  const h0 = frequenciesHz.map((f) => Array.from(e.transferAt(f, h)));
+  const gainDb = frequenciesHz.map(() => new Float64Array(boards.count));
+  const phaseDeg = frequenciesHz.map(() => new Float64Array(boards.count));
+  for (let b = 0; b < boards.count; b++) {
+    boards.apply(b);
+    for (let i = 0; i < m; i++) {
+      e.transferAt(frequenciesHz[i], h);
+      const [r0, i0] = h0[i];
+      gainDb[i][b] = 10 * Math.log10(h[0] * h[0] + h[1] * h[1]);
+      phaseDeg[i][b] = nominalPhaseDeg[i] + Math.atan2(h[1] * r0 - h[0] * i0, h[0] * r0 + h[1] * i0) * DEG; // arg(H conj(H0))
+    }
+  }
+  boards.restoreNominal();
+  return { nominalGainDb, nominalPhaseDeg, gainDb, phaseDeg };
+}
+
+/** The production-test design on Monte Carlo boards (see the module comment). */
+export function planProductionTest(boards: BoardSample, options: ProductionTestOptions): ProductionTestDesign {
+  if (typeof options !== 'object' || options === null) throw new InvalidInputError('INVALID_ARGUMENT', 'options', options, 'must be an options object');
+  const spec = options.testPoints ?? 'auto';
+  let points: TestPoint[];
+  if (spec === 'auto') {
+    if (!options.mask) throw new InvalidInputError('INVALID_ARGUMENT', 'options.mask', options.mask, "automatic test points need the spec mask");
+    points = automaticTestPoints(options.mask, options.trimFrequencyHz);
+  } else {
+    points = explicitTestPoints(options.trimFrequencyHz === undefined ? spec : [...spec, { frequencyHz: options.trimFrequencyHz, id: 'trim-1' }]);
+  }
+  const freqs = points.map((p) => p.frequencyHz);
+  const mask = options.mask ? maskLimits(options.mask, freqs) : null;
+  if ((options.gain?.source === 'mask' || options.phase?.source === 'mask') && !mask) {
+    throw new InvalidInputError('INVALID_ARGUMENT', 'options.mask', options.mask, "limits from 'mask' need the spec mask");
+  }
+  if (options.phase?.source === 'mask') throw new InvalidInputError('INVALID_ARGUMENT', 'options.phase.source', 'mask', 'the mask has no phase window');
+  const resp = boardResponses(boards, freqs);
+  const diagnostics: PlanDiagnostic[] = [];
+  const sourceAt = (s: PlanLimitSource, i: number): LimitSource => {
+    if (s === 'mask') return { kind: 'mask', limits: { lower: mask!.minGainDb[i], upper: mask!.maxGainDb[i] } };
+    if (s.kind === 'statistical' && s.oneSided === undefined && mask) {
+      const lo = Number.isFinite(mask.minGainDb[i]);
+      const hi = Number.isFinite(mask.maxGainDb[i]);
+      if (hi && !lo) return { ...s, oneSided: 'upper' }; // a stopband ceiling: no lower limit
+    }
+    return s;
+  };
+  const analyses = points.map((p, i): TestPointAnalysis => {
+    const gain = quantityLimits(
+      { nominal: resp.nominalGainDb[i], samples: resp.gainDb[i], source: sourceAt(options.gain?.source, i), rule: options.gain?.rule, uncertainty: options.gain?.uncertainty },
+      `options.gain`,
+    );
+    const phase = options.phase
+      ? quantityLimits({ nominal: resp.nominalPhaseDeg[i], samples: resp.phaseDeg[i], source: options.phase.source as LimitSource, rule: options.phase.rule, uncertainty: options.phase.uncertainty }, 'options.phase')
+      : null;
+    for (const [what, q] of [['gain', gain], ['phase', phase]] as const) {
+      if (!q) continue;
+      if (q.tolerance.lower === -Infinity && q.tolerance.upper === Infinity) diagnostics.push({ code: 'NO_LIMIT', message: `${p.id} (${p.frequencyHz} Hz): no ${what} limit (the point is in no band of the mask)` });
+      if (q.acceptance.lower > q.acceptance.upper) diagnostics.push({ code: 'EMPTY_ACCEPTANCE', message: `${p.id} (${p.frequencyHz} Hz): the guard band leaves no ${what} acceptance interval: every board fails` });
+    }
+    return { ...p, gain, phase };
+  });
+  // Overall shares over the boards.
+  let conforming = 0;
+  let accepted = 0;
+  let unsolved = 0;
+  for (let b = 0; b < boards.count; b++) {
+    let ok = true;
+    let pAccept = 1;
+    analyses.forEach((a, i) => {
+      const g = resp.gainDb[i][b];
+      if (!Number.isFinite(g)) unsolved++;
+      ok &&= inInterval(g, a.gain.tolerance);
+      pAccept *= acceptanceGivenTrue(g, a.gain.acceptance, options.gain.uncertainty.standardUncertainty) || 0;
+      if (a.phase && options.phase) {
+        const ph = resp.phaseDeg[i][b];
+        ok &&= inInterval(ph, a.phase.tolerance);
+        pAccept *= acceptanceGivenTrue(ph, a.phase.acceptance, options.phase.uncertainty.standardUncertainty) || 0;
+      }
+    });
+    if (ok) conforming++;
+    accepted += pAccept;
+  }
+  if (unsolved > 0) diagnostics.push({ code: 'UNSOLVED_BOARDS', message: `${unsolved} board responses could not be solved (counted as failing)` });
+  const testPoints: PlanTestPoint[] = analyses.map((a, i) => ({
+    id: a.id,
+    frequencyHz: a.frequencyHz,
+    nominalGainDb: a.gain.nominal,
+    nominalPhaseDeg: resp.nominalPhaseDeg[i],
+    gainLimitsDb: a.gain.acceptance,
+    ...(a.phase ? { phaseLimitsDeg: a.phase.acceptance } : {}),
+  }));
+  return {
+    points: analyses,
+    plan: { testPoints, ...(options.interpolation ? { interpolation: options.interpolation } : {}), ...(options.frequencyTolerance !== undefined ? { frequencyTolerance: options.frequencyTolerance } : {}) },
+    conformingShare: conforming / boards.count,
+    expectedAcceptedShare: accepted / boards.count,
+    boards: boards.count,
+    diagnostics,
+  };
+}
