@@ -358,7 +358,15 @@ export class MeasurementChecker {
   }
 }
 
-/** Checks a whole CSV text (see csv.ts for the format). Throws CsvError for malformed input. */
+/**
+ * Checks a whole CSV text (see csv.ts for the format). Throws CsvError for malformed input.
+ *
+ * @example
+ * const plan = { testPoints: [{ id: 'edge', frequencyHz: 1000, nominalGainDb: -3, gainLimitsDb: { lower: -3.5, upper: -2.5 } }] };
+ * const r = checkMeasurements(plan, 'board,frequency_hz,gain_db\nA1,1000,-3.1\nA2,1000,-3.9\n');
+ * r.summary.passed; // 1
+ * r.boards[1].points[0].gainMarginDb.lower; // -0.4: 0.4 dB below the lower limit
+ */
 export function checkMeasurements(plan: ProductionPlan, csvText: string, options: CheckOptions = {}): CheckResult {
   if (typeof csvText !== 'string') throw new InvalidInputError('INVALID_ARGUMENT', 'csvText', csvText, 'must be a string');
   const checker = new MeasurementChecker(plan, options);

@@ -7,6 +7,7 @@
  * Non-finite samples (a board whose response could not be solved) are counted and left out.
  * Kernels: an empty sample gives NaN, never a throw.
  */
+import { sortedQuantile } from '../tolerance/streaming-stats';
 
 /** Probabilities reported by default: the 99.73 % and 95 % two-sided coverages, the quartiles and the median. */
 export const DEFAULT_QUANTILE_PROBABILITIES: readonly number[] = [0.00135, 0.025, 0.25, 0.5, 0.75, 0.975, 0.99865];
@@ -39,14 +40,9 @@ export function sortedFinite(samples: ArrayLike<number>): Float64Array {
   return out.sort();
 }
 
-/** The type-7 quantile of an ascending array; NaN when it is empty or p is outside [0, 1]. */
+/** The type-7 quantile of an ascending array (tolerance's sortedQuantile); NaN when it is empty or p is outside [0, 1]. */
 export function quantileOfSorted(sorted: ArrayLike<number>, p: number): number {
-  const n = sorted.length;
-  if (n === 0 || !(p >= 0 && p <= 1)) return NaN;
-  const h = (n - 1) * p; // Hyndman-Fan definition 7
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, n - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+  return p >= 0 && p <= 1 ? sortedQuantile(sorted, p) : NaN;
 }
 
 /** Mean, sd (two-pass, so no cancellation), extremes and quantiles of the finite samples. */

@@ -214,3 +214,12 @@ describe('checkMeasurementsStream', () => {
     expect((await checkMeasurementsStream(plan, gen())).pass).toBe(true);
   });
 });
+
+describe('documentation example', () => {
+  it('runs the @example of checkMeasurements', () => {
+    const plan = { testPoints: [{ id: 'edge', frequencyHz: 1000, nominalGainDb: -3, gainLimitsDb: { lower: -3.5, upper: -2.5 } }] };
+    const r = checkMeasurements(plan, 'board,frequency_hz,gain_db\nA1,1000,-3.1\nA2,1000,-3.9\n');
+    expect(r.summary.passed).toBe(1);
+    expect(r.boards[1].points[0].gainMarginDb!.lower).toBeCloseTo(-0.4, 12);
+  });
+});
