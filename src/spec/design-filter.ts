@@ -20,6 +20,9 @@ import type { LadderSynthesis } from '../ladder/index';
 import type { Circuit } from '../netlist/circuit';
 import type { OpampModel } from '../netlist/opamp';
 import { selectParts } from '../selection/select-parts';
+import { searchParts } from '../selection/search';
+import { compileAc } from '../analysis/ac-engine';
+import { evaluationGrid } from './evaluation-grid';
 import type { SelectedPart, Selection } from '../selection/selected-part';
 import { realizeLadder } from '../substitution/realize';
 import type { Realization, RealizationMethod } from '../substitution/realization';
@@ -133,12 +136,19 @@ export function designFilter(input: unknown): FilterDesign {
       buffers: bufferChoice(spec),
       ...(spec.response.type === 'lowpass' ? { passbandEdgeHz: edges as number } : {}),
     });
-  const realization = realize(impedance.capacitorF, spec.realization.gicResistanceOhms);
+  let realization = realize(impedance.capacitorF, spec.realization.gicResistanceOhms);
+  const families = { resistors: spec.parts.resistors, capacitors: spec.parts.capacitors };
+  let selection: Selection;
+  if (spec.parts.selection === 'search') {
+    const found = searchParts(impedance.capacitorF, families, spec.parts.searchMaxEvaluations, (c) => realize(c, spec.realization.gicResistanceOhms), (r, s) =>
+      roundingErrorDb(r, s, spec.response.type, edges, spec.evaluation.sweepPoints),
+    );
+    realization = found.realization;
+    selection = found.selection;
+    const tried = found.candidates.map((c) => `${formatQuantity(fractionToNumber(c.capacitorF), 'F')}: ${c.errorDb.toFixed(3)} dB`).join(', ');
+    note('selection', 'info', 'SEARCH', `capacitor ${formatQuantity(fractionToNumber(found.best.capacitorF), 'F')} chosen (worst passband rounding error ${found.best.errorDb.toFixed(3)} dB; tried ${tried})`);
+  } else selection = selectParts(realization, { strategy: spec.parts.selection, ...families });
   for (const d of realization.diagnostics) note('substitution', 'info', d.code, d.message);
-
-  const selectionOptions = { strategy: spec.parts.selection === 'search' ? 'capacitors-first' : spec.parts.selection, resistors: spec.parts.resistors, capacitors: spec.parts.capacitors } as const;
-  let selection = selectParts(realization, selectionOptions);
-  if (spec.parts.selection === 'search') selection = { ...selection, strategy: 'search' };
   for (const d of selection.diagnostics) note('selection', 'warning', d.code, d.message);
 
   const chosenIdeal = realization.circuit.withValues(selection.values);
@@ -218,6 +228,18 @@ export function prototypeOmega(type: DesignSpec['response']['type'], edges: Edge
       return (edgeRadPerS * f * (b - a)) / Math.abs(a * b - f * f);
     }
   }
+}
+
+/** The worst passband |gain(chosen parts) - gain(exact parts)|, ideal op-amps, dB: the search's score. */
+function roundingErrorDb(r: Realization, s: Selection, type: DesignSpec['response']['type'], edges: Edge, points: number): number {
+  const grid = evaluationGrid(type, edges, undefined, points);
+  const f = grid.frequencyHz.filter((_, i) => grid.passband[i]);
+  const transfer = { input: 'VIN', output: 'out' } as const;
+  const a = compileAc(r.circuit, transfer).sweep(f, { nodes: 'none' }).gainDb;
+  const b = compileAc(r.circuit.withValues(s.values), transfer).sweep(f, { nodes: 'none' }).gainDb;
+  let m = 0;
+  for (let i = 0; i < f.length; i++) m = Math.max(m, Math.abs(a[i] - b[i]));
+  return Number.isNaN(m) ? Infinity : m;
 }
 
 type Note = (stage: string, severity: DiagnosticSeverity, code: string, message: string) => void;

@@ -168,15 +168,15 @@ const parts = z
       .default('capacitors-first')
       .describe(
         "How preferred values are chosen. 'exact': no rounding; 'round': every part to its series; 'capacitors-first' (the default): capacitors from " +
-          "their series, resistors computed exactly for them, then rounded to theirs; 'search': capacitors-first over neighbouring capacitor values, keeping the smallest worst passband error.",
+          "their series, resistors computed exactly for them, then rounded to theirs; 'search': capacitors-first for the capacitor to build around and its neighbouring preferred values (up to searchMaxEvaluations), keeping the one with the smallest worst passband error after rounding.",
       ),
     searchMaxEvaluations: z
       .number()
       .int()
       .min(1)
       .max(10_000)
-      .default(200)
-      .describe("'search' only: the most candidate part sets evaluated (bounds the time). Default 200."),
+      .default(5)
+      .describe("'search' only: the most candidate capacitor values realised and scored (bounds the time; each costs one realisation). Default 5."),
   })
   .describe('The parts: E-series, tolerances, temperature coefficients, the op-amp, and how preferred values are chosen.');
 

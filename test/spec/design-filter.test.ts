@@ -62,6 +62,14 @@ describe('designFilter', () => {
     expect(caps(round)).toEqual(caps(first));
   });
 
+  it("'search' is never worse after rounding than capacitors-first at the starting capacitor (which it includes)", () => {
+    const first = designFilter(butterworth3({ realization: { capacitorF: '6.8n' } }));
+    const search = designFilter(butterworth3({ realization: { capacitorF: '6.8n' }, parts: { selection: 'search', searchMaxEvaluations: 3 } }));
+    expect(search.selection.strategy).toBe('search');
+    expect(search.evaluation.passbandErrorDb.rounding).toBeLessThanOrEqual(first.evaluation.passbandErrorDb.rounding + 1e-12);
+    expect(search.diagnostics.some((x) => x.code === 'SEARCH')).toBe(true);
+  });
+
   it('reports the minimum GBW for the stated error, and a GBW below it as a warning', () => {
     const slow = designFilter(butterworth3({ parts: { opamp: { model: 'single-pole', gainBandwidthHz: '20k' } } }));
     expect(slow.evaluation.gainBandwidth.meets).toBe(false);
