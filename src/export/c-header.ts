@@ -231,9 +231,11 @@ export function renderCHeader(model: HeaderModel): string {
       const intType = bits === 15 ? 'int16_t' : 'int32_t';
       const name = `${P}_DIGITAL_SOS_${fixed}`;
       out(
-        `/* ${fixed}: coefficient = ${name}[k][i] * 2^(${name}_SHIFT - ${bits}). Quantised by rounding to nearest`,
-        ` * (ties away from zero) and saturating to [-2^${bits}, 2^${bits} - 1]; a filter using them should accumulate`,
-        ` * products in ${bits === 15 ? 'int32_t' : 'int64_t'}, shift left by ${name}_SHIFT, then round and saturate the same way. */`,
+        `/* ${fixed} form: coefficient = ${name}[k][i] * 2^(${name}_SHIFT - ${bits}).`,
+        ' * The numerators are rescaled to equal peak magnitude (the same overall H as the table above).',
+        ` * Quantised by rounding to nearest (ties away from zero), saturated to [-2^${bits}, 2^${bits} - 1]. A filter`,
+        ` * using them should accumulate products in ${bits === 15 ? 'int32_t' : 'int64_t'}, shift left by ${name}_SHIFT, then round`,
+        ' * and saturate the same way. */',
         `#define ${name}_FRACTION_BITS ${bits}`,
         `#define ${name}_SHIFT ${q.shift}`,
         `static const ${intType} ${name}[${P}_DIGITAL_SECTION_COUNT][5] = {`,

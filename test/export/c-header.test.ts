@@ -202,7 +202,7 @@ describe('fixed point', () => {
     const sections = zpkToDigitalSections(bilinearZpk(CHEBY, 96000));
     for (const format of ['Q15', 'Q31'] as const) {
       const q = quantiseSections(sections, format);
-      const all = sections.flatMap((s) => [s.b0, s.b1, s.b2, s.a1, s.a2]);
+      const all = q.balanced.flatMap((s) => [s.b0, s.b1, s.b2, s.a1, s.a2]);
       const largest = Math.max(...all.map(Math.abs));
       expect(largest).toBeLessThan(2 ** q.shift);
       expect(q.shift === 0 || largest >= 2 ** (q.shift - 1)).toBe(true);
@@ -214,6 +214,26 @@ describe('fixed point', () => {
         expect(Math.abs(v * step - all[i])).toBeLessThanOrEqual(step / 2);
       });
     }
+  });
+
+  it('balancing keeps the cascade and gives every numerator the same peak; a narrow lowpass keeps its gain in Q15', () => {
+    const narrow = scaledPrototype(lowpassPrototype({ family: 'chebyshev', order: 5, passbandRippleDb: 0.1 }), 2 * Math.PI * 200);
+    const sections = zpkToDigitalSections(bilinearZpk(narrow, 48000));
+    expect(sections[0].b0).toBeLessThan(1e-9); // the whole gain in the first numerator: 0 in Q15 without balancing
+    const q = quantiseSections(sections, 'Q15');
+    const peaks = q.balanced.map((s) => Math.max(Math.abs(s.b0), Math.abs(s.b1), Math.abs(s.b2)));
+    for (const p of peaks) expect(p).toBeCloseTo(peaks[0], 12);
+    // same H at DC (z = 1): sum(b) / (1 + a1 + a2) multiplied over the sections
+    const dc = (ss: typeof sections) => ss.reduce((acc, s) => (acc * (s.b0 + s.b1 + s.b2)) / (1 + s.a1 + s.a2), 1);
+    expect(dc(q.balanced)).toBeCloseTo(dc(sections), 12);
+    // quantised numerators (exact denominators: poles this close to z = 1 need more than Q15, a separate
+    // matter) give the DC gain within 5 %: balanced numerators are ~7e-4, about 12 steps of 2^-14, so each
+    // rounds by up to 4 %, partly cancelling; unbalanced, the first numerator (~1e-10) rounds to 0
+    const step = 2 ** (q.shift - q.fractionBits);
+    const fromQ = q.rows.map((r, i) => ({ b0: r[0] * step, b1: r[1] * step, b2: r[2] * step, a1: sections[i].a1, a2: sections[i].a2 }));
+    expect(q.rows.every((r) => r[0] !== 0)).toBe(true);
+    expect(Math.abs(dc(fromQ) / dc(sections) - 1)).toBeLessThan(0.05);
+    expect(Math.round(sections[0].b0 * 2 ** (15 - q.shift))).toBe(0);
   });
 
   it('saturates 1 - tiny to 2^15 - 1, rounds ties away from zero', () => {

@@ -49,9 +49,11 @@ static const float DEMO_ANALOG_SOS[DEMO_ANALOG_SECTION_COUNT][6] = {
 static const float DEMO_DIGITAL_SOS[DEMO_DIGITAL_SECTION_COUNT][5] = {
   { 0.125f, 0.0f, -0.125f, -1.75f, 0.75f }
 };
-/* Q15: coefficient = DEMO_DIGITAL_SOS_Q15[k][i] * 2^(DEMO_DIGITAL_SOS_Q15_SHIFT - 15). Quantised by rounding to nearest
- * (ties away from zero) and saturating to [-2^15, 2^15 - 1]; a filter using them should accumulate
- * products in int32_t, shift left by DEMO_DIGITAL_SOS_Q15_SHIFT, then round and saturate the same way. */
+/* Q15 form: coefficient = DEMO_DIGITAL_SOS_Q15[k][i] * 2^(DEMO_DIGITAL_SOS_Q15_SHIFT - 15).
+ * The numerators are rescaled to equal peak magnitude (the same overall H as the table above).
+ * Quantised by rounding to nearest (ties away from zero), saturated to [-2^15, 2^15 - 1]. A filter
+ * using them should accumulate products in int32_t, shift left by DEMO_DIGITAL_SOS_Q15_SHIFT, then round
+ * and saturate the same way. */
 #define DEMO_DIGITAL_SOS_Q15_FRACTION_BITS 15
 #define DEMO_DIGITAL_SOS_Q15_SHIFT 1
 static const int16_t DEMO_DIGITAL_SOS_Q15[DEMO_DIGITAL_SECTION_COUNT][5] = {
