@@ -15,7 +15,7 @@ import { cCommentText, cStringLiteral, formatCFloat, formatCInteger, sanitiseCId
 import { headerIdentifiers, renderCHeader, type HeaderModel } from '../../src/export/c-header';
 import { quantiseSections } from '../../src/export/fixed-point';
 import { canonicalJson, fnv1a64, hashDesign } from '../../src/export/design-hash';
-import { zpkToAnalogSections, zpkToDigitalSections } from '../../src/export/sos';
+import { zpkToAnalogSections, zpkToDigitalSections, type DigitalSection } from '../../src/export/sos';
 import { bilinearZpk } from '../../src/export/bilinear';
 import { lowpassPrototype } from '../../src/approximation/prototype';
 import { evaluateZpk } from '../../src/approximation/zpk';
@@ -224,7 +224,7 @@ describe('fixed point', () => {
     const peaks = q.balanced.map((s) => Math.max(Math.abs(s.b0), Math.abs(s.b1), Math.abs(s.b2)));
     for (const p of peaks) expect(p).toBeCloseTo(peaks[0], 12);
     // same H at DC (z = 1): sum(b) / (1 + a1 + a2) multiplied over the sections
-    const dc = (ss: typeof sections) => ss.reduce((acc, s) => (acc * (s.b0 + s.b1 + s.b2)) / (1 + s.a1 + s.a2), 1);
+    const dc = (ss: readonly DigitalSection[]) => ss.reduce((acc, s) => (acc * (s.b0 + s.b1 + s.b2)) / (1 + s.a1 + s.a2), 1);
     expect(dc(q.balanced)).toBeCloseTo(dc(sections), 12);
     // quantised numerators (exact denominators: poles this close to z = 1 need more than Q15, a separate
     // matter) give the DC gain within 5 %: balanced numerators are ~7e-4, about 12 steps of 2^-14, so each
