@@ -47,8 +47,11 @@ const json = (r: MonteCarloResult) => JSON.stringify(r, (_k, v) => (ArrayBuffer.
 runMonteCarlo(circuit, transfer, spec, { ...options, trials: 5000 });
 
 let t0 = performance.now();
+const serialCpu0 = process.cpuUsage();
 const serial = runMonteCarlo(circuit, transfer, spec, options);
 const serialS = (performance.now() - t0) / 1000;
+const serialCpu = process.cpuUsage(serialCpu0);
+const serialCpuS = (serialCpu.user + serialCpu.system) / 1e6;
 
 t0 = performance.now();
 const cold = await runMonteCarloParallel(circuit, transfer, spec, { ...options, workers: WORKERS });
@@ -57,8 +60,11 @@ const coldS = (performance.now() - t0) / 1000;
 const pool = await MonteCarloWorkerPool.start(WORKERS);
 await pool.run(circuit, transfer, spec, { ...options, trials: 5000 }); // warm-up (JIT) in the workers
 t0 = performance.now();
+const cpu0 = process.cpuUsage();
 const parallel = await pool.run(circuit, transfer, spec, options);
 const parallelS = (performance.now() - t0) / 1000;
+const cpu = process.cpuUsage(cpu0); // every thread of the process
+const parallelCpuS = (cpu.user + cpu.system) / 1e6;
 const identical = json(parallel) === json(serial) && json(cold) === json(serial);
 
 let peakRss = process.memoryUsage().rss;
@@ -78,8 +84,8 @@ const results = {
   frequencies: FREQUENCIES,
   node: process.version,
   machine: { cpus: availableParallelism(), loadAverage1m: loadavg()[0] },
-  serial100k: { seconds: serialS, usPerTrial: serialUsPerTrial },
-  parallel100k: { workers: WORKERS, seconds: parallelS, usPerTrial: parallelUsPerTrial, target: 2, identicalToSerial: identical, coldSecondsWithWorkerStartup: coldS },
+  serial100k: { seconds: serialS, usPerTrial: serialUsPerTrial, cpuSeconds: serialCpuS },
+  parallel100k: { workers: WORKERS, seconds: parallelS, usPerTrial: parallelUsPerTrial, target: 2, identicalToSerial: identical, coldSecondsWithWorkerStartup: coldS, cpuSecondsAllThreads: parallelCpuS, cpuShareOfTwoCores: parallelCpuS / (2 * parallelS) },
   parallel1M: { workers: WORKERS, seconds: bigS, peakRssMb, targetRssMb: 300, quantileMethod: big.quantileMethod },
   speedupOverSimulator: { simulatorMsPerTrial: SIMULATOR_MS_PER_TRIAL, factor: (SIMULATOR_MS_PER_TRIAL * 1000) / parallelUsPerTrial, target: 30 },
   sample: { frequencyHz: frequenciesHz[8], gainDbMean: serial.gainDb.mean[8], gainDbStd: serial.gainDb.standardDeviation[8] },
@@ -92,8 +98,9 @@ console.log(
     '',
     '| measurement | value | target | |',
     '|---|---|---|---|',
-    `| 100,000 trials, serial | ${serialS.toFixed(2)} s (${serialUsPerTrial.toFixed(1)} us/trial) | | |`,
+    `| 100,000 trials, serial | ${serialS.toFixed(2)} s (${serialUsPerTrial.toFixed(1)} us/trial; CPU ${serialCpuS.toFixed(2)} s) | | |`,
     row(`100,000 trials, pool of ${WORKERS} started workers`, `${parallelS.toFixed(2)} s (${parallelUsPerTrial.toFixed(1)} us/trial)`, '<= 2 s', parallelS <= 2),
+    `| same: CPU time of all threads / share of 2 cores obtained | ${parallelCpuS.toFixed(2)} s / ${((100 * parallelCpuS) / (2 * parallelS)).toFixed(0)} % | | |`,
     `| same, cold (worker start-up from TypeScript sources included) | ${coldS.toFixed(2)} s | | |`,
     row('parallel results byte-identical to serial', String(identical), 'true', identical),
     row(`10^6 trials, ${WORKERS} workers: peak resident set`, `${peakRssMb.toFixed(0)} MB (${bigS.toFixed(1)} s)`, '<= 300 MB', peakRssMb <= 300),

@@ -12,5 +12,6 @@ export * from './propagation';
 export * from './streaming-stats';
 export * from './monte-carlo';
 export * from './yield';
+export * from './estimate-yield';
 export * from './circuit-json';
 export type { WorkerReply, WorkerRequest, WorkerSetup } from './worker-protocol';

@@ -148,5 +148,8 @@ export function wilsonInterval(successes: number, trials: number, confidence = 0
   const denom = 1 + z2 / n;
   const centre = (p + z2 / (2 * n)) / denom; // Eq. (Wilson 1927, score interval centre)
   const half = (z * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n))) / denom;
-  return { estimate: p, low: Math.max(0, centre - half), high: Math.min(1, centre + half), confidence, method: 'wilson-score' };
+  // at x = 0 (x = n) the lower (upper) end is exactly 0 (1); the formula gives it only up to rounding
+  const low = successes === 0 ? 0 : Math.max(0, centre - half);
+  const high = successes === trials ? 1 : Math.min(1, centre + half);
+  return { estimate: p, low, high, confidence, method: 'wilson-score' };
 }

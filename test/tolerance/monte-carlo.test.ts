@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { InvalidInputError } from '../../src/errors';
 import { runMonteCarlo, type MonteCarloResult } from '../../src/tolerance/monte-carlo';
+import { estimateYield } from '../../src/tolerance/estimate-yield';
 import { propagateUncertainty } from '../../src/tolerance/propagation';
 import type { ToleranceSpec } from '../../src/tolerance/spec';
 import { gicFdnrLowpass } from '../helpers/gic-circuits';
@@ -193,6 +194,20 @@ describe('runMonteCarlo behaviour', () => {
     expect(y.low).toBeLessThan(0.5);
     expect(y.high).toBeGreaterThan(0.5);
     expect(y.failuresAt[0]).toBe(trials - y.passed);
+  });
+
+  it('estimateYield on a mask grid: a generous mask passes every board, a mask tighter than the nominal passes none', () => {
+    const g0 = 20 * Math.log10(0.5);
+    const loose = { passband: [{ fromHz: 0, toHz: 100, minGainDb: g0 - 3, maxGainDb: g0 + 3 }], stopband: [] };
+    const y = estimateYield(divider(), transfer, spec, loose, { trials: 2000, seed: 4, pointsPerBand: 3 });
+    expect(y.passed).toBe(2000);
+    expect(y.monteCarlo.frequencyHz.length).toBe(3);
+    expect(y.high).toBe(1);
+    expect(y.low).toBeGreaterThan(0.99); // Wilson with 0 failures in 2000: 1 - z^2/(n + z^2) = 0.998
+    const impossible = { passband: [], stopband: [{ fromHz: 0, toHz: 100, maxGainDb: g0 - 3 }] };
+    const z = estimateYield(divider(), transfer, spec, impossible, { trials: 500, seed: 4 });
+    expect(z.passed).toBe(0);
+    expect(z.low).toBe(0);
   });
 
   it('rejects bad specifications and options with typed errors', () => {
