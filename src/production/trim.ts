@@ -96,6 +96,8 @@ export interface TrimSimulationOptions {
   readonly measurementUncertaintyDb?: number;
   /** Seed of the device-tolerance and measurement-noise stream (default 1). */
   readonly seed?: number;
+  /** Stop once more boards than this have failed after trimming (sizing uses it; default no limit). */
+  readonly maxFailures?: number;
 }
 
 export interface TrimTableEntry {
@@ -129,6 +131,13 @@ export interface TrimSimulation {
   readonly predictedGainDb: Float64Array;
   /** Boards whose chosen code is the first or the last (the range ran out). */
   readonly atRangeEnd: number;
+  /** Per test point: the gain error against the nominal design gain there, before and after the trim. */
+  readonly pointErrors: readonly { readonly frequencyHz: number; readonly untrimmed: SampleSummary; readonly trimmed: SampleSummary }[];
+  /**
+   * Boards simulated: all of them, unless sizing stopped a candidate early once more boards had failed
+   * than the share allows (then the yields are over the boards simulated, and the candidate fails).
+   */
+  readonly simulatedBoards: number;
 }
 
 interface ResolvedDevice {
@@ -308,15 +317,25 @@ export function simulateTrim(boards: BoardSample, spec: TrimSpec, testPoints: re
   testPoints.forEach((p, i) => positive(p?.frequencyHz, `testPoints[${i}].frequencyHz`));
   const table = buildTable(boards, spec, device, targets, f);
   const rng = new BlockStreams(seed ^ TRIM_STREAM_SALT).generatorFor(0);
+  const maxFailures = options.maxFailures ?? Infinity;
   try {
-    return runTrim(boards, table, device, targets, testPoints, u, rng);
+    return runTrim(boards, table, device, targets, testPoints, u, rng, maxFailures);
   } finally {
     boards.restoreNominal();
     for (const t of targets) boards.engine.setParameter(t.slot, t.designOhms);
   }
 }
 
-function runTrim(boards: BoardSample, table: TrimTable, device: ResolvedDevice, targets: Target[], points: readonly TrimTestPoint[], u: number, rng: RandomGenerator): TrimSimulation {
+function runTrim(
+  boards: BoardSample,
+  table: TrimTable,
+  device: ResolvedDevice,
+  targets: Target[],
+  points: readonly TrimTestPoint[],
+  u: number,
+  rng: RandomGenerator,
+  maxFailures: number,
+): TrimSimulation {
   const e = boards.engine;
   const n = boards.count;
   const q = boards.parameters.length;
@@ -334,9 +353,23 @@ function runTrim(boards: BoardSample, table: TrimTable, device: ResolvedDevice, 
   const setCode = (c: number) => {
     targets.forEach((t, k) => e.setParameter(t.slot, effective(t, device.resistance(c, dev[k]), scale[k])));
   };
-  const passes = () => points.every((p) => inInterval(gainPhaseAt(e, p.frequencyHz, h)[0], p.gainLimitsDb));
+  // Nominal design gain at each test point (engine nominal here: buildTable restored it).
+  boards.restoreNominal();
+  const nominalAt = points.map((p) => gainPhaseAt(e, p.frequencyHz, h)[0]);
+  const errBefore = points.map(() => new Float64Array(n));
+  const errAfter = points.map(() => new Float64Array(n));
+  const passes = (b: number, into: Float64Array[]) => {
+    let ok = true;
+    points.forEach((p, i) => {
+      const g = gainPhaseAt(e, p.frequencyHz, h)[0];
+      into[i][b] = g - nominalAt[i];
+      if (!inInterval(g, p.gainLimitsDb)) ok = false;
+    });
+    return ok;
+  };
   const f = table.frequencyHz;
-  for (let b = 0; b < n; b++) {
+  let done = 0;
+  for (let b = 0; b < n && done - passAfter <= maxFailures; b++, done++) {
     boards.apply(b);
     targets.forEach((t, k) => {
       scale[k] = t.boardIndex >= 0 ? boards.values[b * q + t.boardIndex] / t.designOhms : 1;
@@ -345,7 +378,7 @@ function runTrim(boards: BoardSample, table: TrimTable, device: ResolvedDevice, 
     setCode(table.defaultCode);
     const g0 = gainPhaseAt(e, f, h)[0];
     before[b] = g0 - table.targetGainDb;
-    if (passes()) passBefore++;
+    if (passes(b, errBefore)) passBefore++;
     const measured = g0 + (u > 0 ? u * sampleStandardNormal(rng) : 0);
     const c = firmwareCode(table, measured);
     codes[b] = c;
@@ -355,19 +388,22 @@ function runTrim(boards: BoardSample, table: TrimTable, device: ResolvedDevice, 
     const g1 = gainPhaseAt(e, f, h)[0];
     trimmedGainDb[b] = g1;
     after[b] = g1 - table.targetGainDb;
-    if (passes()) passAfter++;
+    if (passes(b, errAfter)) passAfter++;
   }
+  const upTo = (a: Float64Array) => (done === n ? a : a.slice(0, done));
   return {
     table,
     boards: n,
-    untrimmedYield: passBefore / n,
-    trimmedYield: passAfter / n,
-    untrimmedError: summarizeSamples(before),
-    trimmedError: summarizeSamples(after),
-    codes,
-    trimmedGainDb,
-    predictedGainDb,
+    untrimmedYield: passBefore / done,
+    trimmedYield: passAfter / done,
+    untrimmedError: summarizeSamples(upTo(before)),
+    trimmedError: summarizeSamples(upTo(after)),
+    codes: done === n ? codes : codes.slice(0, done),
+    trimmedGainDb: upTo(trimmedGainDb),
+    predictedGainDb: upTo(predictedGainDb),
     atRangeEnd: atEnd,
+    pointErrors: points.map((p, i) => ({ frequencyHz: p.frequencyHz, untrimmed: summarizeSamples(upTo(errBefore[i])), trimmed: summarizeSamples(upTo(errAfter[i])) })),
+    simulatedBoards: done,
   };
 }
 
@@ -381,8 +417,12 @@ export interface TrimSizingCandidate {
   readonly rangeOhms: number;
   readonly stepOhms: number;
   readonly codes: number;
-  /** Post-trim yield, or NaN when the candidate was not simulated (or cannot be fitted). */
+  /**
+   * Post-trim yield over the boards simulated; NaN when the candidate cannot be fitted. A candidate
+   * stopped early (simulatedBoards < boards) has failed the share whatever this value says.
+   */
   readonly trimmedYield: number;
+  readonly simulatedBoards: number;
   readonly feasible: boolean;
 }
 
@@ -410,15 +450,26 @@ export function sizeTrim(boards: BoardSample, base: Omit<TrimSpec, 'device'>, ca
     .map((device, i) => ({ device, ...trimRange(resolveTrimDevice(device, `candidates[${i}]`).device), i }))
     .sort((a, b) => a.rangeOhms - b.rangeOhms || a.codes - b.codes || a.i - b.i);
   const tried: TrimSizingCandidate[] = [];
+  // A candidate fails the share as soon as more than (1 - share) n boards fail: stop it there.
+  const maxFailures = Math.floor((1 - share) * boards.count + 1e-9 * boards.count);
   for (const c of ordered) {
     let sim: TrimSimulation | null = null;
     try {
-      sim = simulateTrim(boards, { ...base, device: c.device }, testPoints, options);
+      sim = simulateTrim(boards, { ...base, device: c.device }, testPoints, { ...options, maxFailures });
     } catch (err) {
       if (!(err instanceof UnrealizableError)) throw err;
     }
-    tried.push({ device: c.device, rangeOhms: c.rangeOhms, stepOhms: c.stepOhms, codes: c.codes, trimmedYield: sim ? sim.trimmedYield : NaN, feasible: sim !== null });
-    if (sim && sim.trimmedYield >= share) return { chosen: c.device, simulation: sim, candidates: tried };
+    const complete = sim !== null && sim.simulatedBoards === boards.count;
+    tried.push({
+      device: c.device,
+      rangeOhms: c.rangeOhms,
+      stepOhms: c.stepOhms,
+      codes: c.codes,
+      trimmedYield: sim ? sim.trimmedYield : NaN,
+      simulatedBoards: sim ? sim.simulatedBoards : 0,
+      feasible: sim !== null,
+    });
+    if (sim && complete && sim.trimmedYield >= share) return { chosen: c.device, simulation: sim, candidates: tried };
   }
   return { chosen: null, simulation: null, candidates: tried };
 }

@@ -130,6 +130,10 @@ describe('the firmware trim on Monte Carlo boards', () => {
     expect(sim.trimmedYield).toBeGreaterThan(0.5); // the trim is worth it here: untrimmed about 13 %
     expect(sim.trimmedError.sd).toBeLessThan(sim.untrimmedError.sd / 3);
     expect(sim.atRangeEnd).toBe(0);
+    expect(sim.simulatedBoards).toBe(1000);
+    // At the trim point itself (7340 Hz) the spread about the design gain shrinks as at the trim frequency.
+    expect(sim.pointErrors[0].trimmed.sd).toBeLessThan(sim.pointErrors[0].untrimmed.sd / 3);
+    expect(sim.pointErrors.map((p) => p.frequencyHz)).toEqual([7340, 10000, 13620]);
   });
   it('noise-free, exact device: the chosen code reproduces the board response within one step', () => {
     const exactDevice: TrimDevice = { ...rheostat, tolerance: 0 };
@@ -162,8 +166,11 @@ describe('trim sizing', () => {
     for (const c of s.candidates.slice(0, -1)) expect(c.feasible ? c.trimmedYield : 0).toBeLessThan(0.8);
     const ranges = s.candidates.map((c) => c.rangeOhms);
     expect([...ranges].sort((a, b) => a - b)).toEqual(ranges);
-    // A 500-ohm range cannot replace a 1000-ohm resistor: the range runs out.
+    // A 500-ohm range cannot replace a 1000-ohm resistor: the range runs out, and the candidate is
+    // stopped as soon as more than 20 % of the boards have failed.
     expect(s.candidates[0].rangeOhms).toBe(500);
+    expect(s.candidates[0].simulatedBoards).toBeLessThan(200);
+    expect(s.simulation!.simulatedBoards).toBe(200);
   });
   it('is monotone in the requested share (fast-check)', () => {
     const order = (d: TrimDevice | null) => {
@@ -180,6 +187,21 @@ describe('trim sizing', () => {
       }),
       { numRuns: 8 },
     );
+  });
+  it('early stopping changes nothing: the choice equals the first candidate whose full simulation reaches the share', () => {
+    const ordered = [...catalogue].sort((a, b) => trimRange(a).rangeOhms - trimRange(b).rangeOhms || trimRange(a).codes - trimRange(b).codes);
+    const full = ordered.map((device) => {
+      try {
+        return simulateTrim(boards, { ...base, device }, points, { measurementUncertaintyDb: 0.02 }).trimmedYield;
+      } catch {
+        return NaN;
+      }
+    });
+    // Shares at each candidate's exact yield (the boundary) and just above it.
+    for (const share of full.filter((y) => y > 0).flatMap((y) => [y, Math.min(1, y + 1e-6)])) {
+      const want = ordered.find((_, i) => full[i] >= share) ?? null;
+      expect(sizeTrim(boards, base, catalogue, points, { requiredShare: share, measurementUncertaintyDb: 0.02 }).chosen).toBe(want);
+    }
   });
   it('rejects a share outside (0, 1] and an empty catalogue', () => {
     expect(() => sizeTrim(boards, base, catalogue, points, { requiredShare: 0 })).toThrow(GicladderError);
