@@ -13,4 +13,6 @@ export * from './ladder/index';
 export * from './transform/index';
 export * from './converter/index';
 export * from './substitution/index';
+export * from './selection/index';
+export * from './spec/index';
 export * from './export/index';
