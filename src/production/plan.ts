@@ -19,6 +19,8 @@ import { inInterval } from './interval';
 import { quantityLimits, type LimitSource, type QuantityLimits } from './limits';
 import { acceptanceGivenTrue } from './risk';
 import { automaticTestPoints, explicitTestPoints, type TestPoint } from './test-points';
+import { createResponseRecorder, type BoardResponses } from './responses';
+import { simulateTrim, type TrimSimulation, type TrimSimulationOptions, type TrimSpec } from './trim';
 
 /** A limit source for planning: 'mask' takes the window from the plan's mask at each point. */
 export type PlanLimitSource = 'mask' | Exclude<LimitSource, { kind: 'mask' }>;
@@ -40,6 +42,12 @@ export interface ProductionTestOptions {
   readonly phase?: QuantityPlanOptions;
   readonly interpolation?: ProductionPlan['interpolation'];
   readonly frequencyTolerance?: number;
+  /**
+   * When the boards are trimmed before the final test: the trim, simulated on every board (trim.ts),
+   * and the distributions, limits and yields are those of the trimmed boards. The trim's own yield
+   * check uses the gain tolerance limits of the plan's points.
+   */
+  readonly trim?: { readonly spec: TrimSpec; readonly options?: TrimSimulationOptions };
 }
 
 export interface TestPointAnalysis extends TestPoint {
@@ -61,39 +69,21 @@ export interface ProductionTestDesign {
   /** Expected share of boards the test accepts (measurement errors included). */
   readonly expectedAcceptedShare: number;
   readonly boards: number;
+  /** The trim simulation, when the plan has a trim. */
+  readonly trim: TrimSimulation | null;
   readonly diagnostics: readonly PlanDiagnostic[];
 }
 
-const DEG = 180 / Math.PI;
-
-/** Gain and phase of every board at the frequencies (board-major arrays per point). */
-export function boardResponses(boards: BoardSample, frequenciesHz: readonly number[]): { nominalGainDb: Float64Array; nominalPhaseDeg: Float64Array; gainDb: Float64Array[]; phaseDeg: Float64Array[] } {
-  const e = boards.engine;
-  const m = frequenciesHz.length;
+/** Gain and phase of every board at the frequencies (untrimmed). Leaves the engine nominal. */
+export function boardResponses(boards: BoardSample, frequenciesHz: readonly number[]): BoardResponses {
   boards.restoreNominal();
-  const order = frequenciesHz.map((_, i) => i).sort((a, b) => frequenciesHz[a] - frequenciesHz[b]);
-  const sweep = e.sweep(order.map((i) => frequenciesHz[i]), { nodes: 'none' }); // phase unwrapped upwards in frequency
-  const nominalGainDb = new Float64Array(m);
-  const nominalPhaseDeg = new Float64Array(m);
-  order.forEach((i, k) => {
-    nominalGainDb[i] = sweep.gainDb[k];
-    nominalPhaseDeg[i] = sweep.phaseDeg[k];
-  });
-  const h = new Float64Array(2);
-  const h0 = frequenciesHz.map((f) => Array.from(e.transferAt(f, h)));
-  const gainDb = frequenciesHz.map(() => new Float64Array(boards.count));
-  const phaseDeg = frequenciesHz.map(() => new Float64Array(boards.count));
+  const rec = createResponseRecorder(boards.engine, frequenciesHz, boards.count);
   for (let b = 0; b < boards.count; b++) {
     boards.apply(b);
-    for (let i = 0; i < m; i++) {
-      e.transferAt(frequenciesHz[i], h);
-      const [r0, i0] = h0[i];
-      gainDb[i][b] = 10 * Math.log10(h[0] * h[0] + h[1] * h[1]);
-      phaseDeg[i][b] = nominalPhaseDeg[i] + Math.atan2(h[1] * r0 - h[0] * i0, h[0] * r0 + h[1] * i0) * DEG; // arg(H conj(H0))
-    }
+    rec.record(b);
   }
   boards.restoreNominal();
-  return { nominalGainDb, nominalPhaseDeg, gainDb, phaseDeg };
+  return rec.responses;
 }
 
 /** The production-test design on Monte Carlo boards (see the module comment). */
@@ -113,7 +103,28 @@ export function planProductionTest(boards: BoardSample, options: ProductionTestO
     throw new InvalidInputError('INVALID_ARGUMENT', 'options.mask', options.mask, "limits from 'mask' need the spec mask");
   }
   if (options.phase?.source === 'mask') throw new InvalidInputError('INVALID_ARGUMENT', 'options.phase.source', 'mask', 'the mask has no phase window');
-  const resp = boardResponses(boards, freqs);
+  let resp: BoardResponses;
+  let trim: TrimSimulation | null = null;
+  if (options.trim) {
+    // The trim's own yields are counted against the plan's gain tolerance where it is known before the
+    // distributions are (mask, nominal +- tolerance); statistical limits follow from the trimmed boards.
+    const g = options.gain?.source;
+    boards.restoreNominal();
+    const tol = points.map((p, i) => {
+      let gainLimitsDb = { lower: -Infinity, upper: Infinity };
+      if (g === 'mask') gainLimitsDb = { lower: mask!.minGainDb[i], upper: mask!.maxGainDb[i] };
+      else if (g?.kind === 'nominal') {
+        const h = boards.engine.transferAt(p.frequencyHz);
+        const n = 10 * Math.log10(h[0] * h[0] + h[1] * h[1]);
+        gainLimitsDb = { lower: n - g.tolerance, upper: n + g.tolerance };
+      }
+      return { frequencyHz: p.frequencyHz, gainLimitsDb };
+    });
+    trim = simulateTrim(boards, options.trim.spec, tol, { ...options.trim.options, recordFrequenciesHz: freqs });
+    resp = trim.responses!;
+  } else {
+    resp = boardResponses(boards, freqs);
+  }
   const diagnostics: PlanDiagnostic[] = [];
   const sourceAt = (s: PlanLimitSource, i: number): LimitSource => {
     if (s === 'mask') return { kind: 'mask', limits: { lower: mask!.minGainDb[i], upper: mask!.maxGainDb[i] } };
@@ -175,6 +186,7 @@ export function planProductionTest(boards: BoardSample, options: ProductionTestO
     conformingShare: conforming / boards.count,
     expectedAcceptedShare: accepted / boards.count,
     boards: boards.count,
+    trim,
     diagnostics,
   };
 }

@@ -23,10 +23,12 @@
  *
  * The firmware's procedure (what the simulation does on each board, and what the C header's table is
  * for): with code c0 set, measure the gain g_m at the trim frequency; take the board's deviation as an
- * offset independent of the code, d = g_m - T[c0]; choose c* = argmin_c |T[c] + d - G*| (the code whose
+ * offset independent of the code, d = g_m - T[c0]; choose c1 = argmin_c |T[c] + d - G*| (the code whose
  * tabulated response, shifted by the measured offset, is nearest the target; ties go to the code
- * nearer c0, then to the lower code); set c*. The measurement carries a normal error of standard
- * uncertainty u (dB).
+ * nearer c0, then to the lower code); set c1. A further pass repeats this from c1 (measure, d = g_m -
+ * T[c1], choose c2, set), and so on for `passes` passes (default 2: the table is for the nominal
+ * device, so with Rab off by 20 % one pass leaves about 20 % of the correction). Each measurement
+ * carries an independent normal error of standard uncertainty u (dB).
  *
  * Float boundary: everything here is Float64 (the compiled engine's values).
  */
@@ -39,6 +41,7 @@ import { BlockStreams } from '../tolerance/random';
 import type { BoardSample } from './boards';
 import { inInterval, type Interval } from './interval';
 import { summarizeSamples, type SampleSummary } from './statistics';
+import { createResponseRecorder, type BoardResponses } from './responses';
 
 export type TrimDevice =
   | {
@@ -98,6 +101,10 @@ export interface TrimSimulationOptions {
   readonly seed?: number;
   /** Stop once more boards than this have failed after trimming (sizing uses it; default no limit). */
   readonly maxFailures?: number;
+  /** Measure-choose-set passes of the firmware (default {@link DEFAULT_TRIM_PASSES}). */
+  readonly passes?: number;
+  /** Record every board's trimmed gain and phase at these frequencies (TrimSimulation.responses). */
+  readonly recordFrequenciesHz?: readonly number[];
 }
 
 export interface TrimTableEntry {
@@ -138,6 +145,8 @@ export interface TrimSimulation {
    * than the share allows (then the yields are over the boards simulated, and the candidate fails).
    */
   readonly simulatedBoards: number;
+  /** The trimmed boards' responses at options.recordFrequenciesHz (null when not asked). */
+  readonly responses: BoardResponses | null;
 }
 
 interface ResolvedDevice {
@@ -297,11 +306,20 @@ export function chooseCode(entries: readonly TrimTableEntry[], wanted: number, n
   return best;
 }
 
-/** The firmware's choice for a measured gain at the default code (see the module comment). */
-export function firmwareCode(table: TrimTable, measuredGainDb: number): number {
-  const offset = measuredGainDb - table.entries[table.defaultCode].gainDb;
-  return chooseCode(table.entries, table.targetGainDb - offset, table.defaultCode);
+/** The firmware's choice for a gain measured with code `atCode` set (default: the default code); see the module comment. */
+export function firmwareCode(table: TrimTable, measuredGainDb: number, atCode: number = table.defaultCode): number {
+  const offset = measuredGainDb - table.entries[atCode].gainDb;
+  return chooseCode(table.entries, table.targetGainDb - offset, atCode);
 }
+
+/**
+ * Two passes: the first pass's error is about the device tolerance times the correction (the table
+ * assumes the nominal Rab), the second removes most of it; more passes gain little (each shrinks the
+ * error by that same factor, about 0.2 for a +-20 % part).
+ */
+export const DEFAULT_TRIM_PASSES = 2;
+/** A production trim loop that has not settled in 10 passes is not going to. */
+const MAX_TRIM_PASSES = 10;
 
 /** Trim-stream salt: the device and noise draws come from a stream apart from the boards' (seed XOR this). */
 const TRIM_STREAM_SALT = 0x7452494d; // 'TRIM'
@@ -318,8 +336,14 @@ export function simulateTrim(boards: BoardSample, spec: TrimSpec, testPoints: re
   const table = buildTable(boards, spec, device, targets, f);
   const rng = new BlockStreams(seed ^ TRIM_STREAM_SALT).generatorFor(0);
   const maxFailures = options.maxFailures ?? Infinity;
+  const iterations = requireInteger(options.passes ?? DEFAULT_TRIM_PASSES, 'options.passes', 1, MAX_TRIM_PASSES);
+  const record = options.recordFrequenciesHz;
+  if (record !== undefined) {
+    if (!Array.isArray(record)) throw new InvalidInputError('INVALID_ARGUMENT', 'options.recordFrequenciesHz', record, 'must be an array of frequencies');
+    record.forEach((x, i) => positive(x, `options.recordFrequenciesHz[${i}]`));
+  }
   try {
-    return runTrim(boards, table, device, targets, testPoints, u, rng, maxFailures);
+    return runTrim(boards, table, device, targets, testPoints, u, rng, maxFailures, record ?? null, iterations);
   } finally {
     boards.restoreNominal();
     for (const t of targets) boards.engine.setParameter(t.slot, t.designOhms);
@@ -335,6 +359,8 @@ function runTrim(
   u: number,
   rng: RandomGenerator,
   maxFailures: number,
+  record: readonly number[] | null,
+  iterations: number,
 ): TrimSimulation {
   const e = boards.engine;
   const n = boards.count;
@@ -356,6 +382,7 @@ function runTrim(
   // Nominal design gain at each test point (engine nominal here: buildTable restored it).
   boards.restoreNominal();
   const nominalAt = points.map((p) => gainPhaseAt(e, p.frequencyHz, h)[0]);
+  const recorder = record ? createResponseRecorder(e, record, n) : null;
   const errBefore = points.map(() => new Float64Array(n));
   const errAfter = points.map(() => new Float64Array(n));
   const passes = (b: number, into: Float64Array[]) => {
@@ -379,16 +406,24 @@ function runTrim(
     const g0 = gainPhaseAt(e, f, h)[0];
     before[b] = g0 - table.targetGainDb;
     if (passes(b, errBefore)) passBefore++;
-    const measured = g0 + (u > 0 ? u * sampleStandardNormal(rng) : 0);
-    const c = firmwareCode(table, measured);
+    // The firmware's passes: measure at the current code, choose, set (module comment).
+    let c = table.defaultCode;
+    let g = g0;
+    for (let it = 0; it < iterations; it++) {
+      const measured = g + (u > 0 ? u * sampleStandardNormal(rng) : 0);
+      const next = firmwareCode(table, measured, c);
+      predictedGainDb[b] = table.entries[next].gainDb + (measured - table.entries[c].gainDb);
+      c = next;
+      setCode(c);
+      g = gainPhaseAt(e, f, h)[0];
+    }
     codes[b] = c;
     if (c === 0 || c === device.codes - 1) atEnd++;
-    predictedGainDb[b] = table.entries[c].gainDb + (measured - table.entries[table.defaultCode].gainDb);
-    setCode(c);
-    const g1 = gainPhaseAt(e, f, h)[0];
+    const g1 = g;
     trimmedGainDb[b] = g1;
     after[b] = g1 - table.targetGainDb;
     if (passes(b, errAfter)) passAfter++;
+    recorder?.record(b);
   }
   const upTo = (a: Float64Array) => (done === n ? a : a.slice(0, done));
   return {
@@ -404,6 +439,7 @@ function runTrim(
     atRangeEnd: atEnd,
     pointErrors: points.map((p, i) => ({ frequencyHz: p.frequencyHz, untrimmed: summarizeSamples(upTo(errBefore[i])), trimmed: summarizeSamples(upTo(errAfter[i])) })),
     simulatedBoards: done,
+    responses: recorder ? recorder.responses : null,
   };
 }
 

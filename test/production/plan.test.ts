@@ -158,6 +158,26 @@ describe('the production-test plan on Monte Carlo boards', () => {
     expect(p).toBeLessThan(0.99);
   });
 
+  it('with a trim, the distributions and yields are those of the trimmed boards', () => {
+    const wide = sampleBoards(circuit, { input: 'in', output: 'out' }, { parts: spec.parts.map((p) => ({ ...p, tolerance: p.tolerance * 2 })) }, { trials: 1000, seed: 8 });
+    const options = { mask: bandpassMask, trimFrequencyHz: 7340, gain: { source: 'mask' as const, rule: { rule: 'guarded-acceptance' } as const, uncertainty: gainU } };
+    const plain = planProductionTest(wide, options);
+    const trimmed = planProductionTest(wide, {
+      ...options,
+      trim: { spec: { device: { kind: 'rheostat', endToEndOhms: 2000, steps: 256, wiperOhms: 75, tolerance: 0.2 }, targets: [{ element: 'G1_R5', placement: 'replace' }], frequencyHz: 7340 }, options: { measurementUncertaintyDb: 0.03 } },
+    });
+    expect(plain.trim).toBeNull();
+    const sim = trimmed.trim!;
+    const edge = trimmed.points.findIndex((p) => p.frequencyHz === 7340);
+    // The recorded trimmed responses are the simulation's own trimmed gains at the trim frequency.
+    expect(Array.from(sim.responses!.gainDb[edge])).toEqual(Array.from(sim.trimmedGainDb));
+    expect(trimmed.points[edge].gain.sd).toBeLessThan(plain.points[edge].gain.sd / 2);
+    expect(trimmed.expectedAcceptedShare).toBeGreaterThan(plain.expectedAcceptedShare);
+    expect(trimmed.conformingShare).toBeCloseTo(sim.trimmedYield, 12);
+    // Untrimmed, the device's own +-20 % makes boards worse than with the 1 % resistor it replaces.
+    expect(sim.untrimmedYield).toBeLessThan(plain.conformingShare);
+  });
+
   it('needs the mask for automatic points and mask limits', () => {
     const g = { source: 'mask' as const, rule: { rule: 'simple-acceptance' } as const, uncertainty: gainU };
     expect(() => planProductionTest(boards, { gain: g })).toThrow(GicladderError);

@@ -135,6 +135,12 @@ describe('the firmware trim on Monte Carlo boards', () => {
     expect(sim.pointErrors[0].trimmed.sd).toBeLessThan(sim.pointErrors[0].untrimmed.sd / 3);
     expect(sim.pointErrors.map((p) => p.frequencyHz)).toEqual([7340, 10000, 13620]);
   });
+  it('a second pass removes most of what the device tolerance leaves after the first', () => {
+    const one = simulateTrim(boards, trim, points, { measurementUncertaintyDb: 0, passes: 1 });
+    const two = simulateTrim(boards, trim, points, { measurementUncertaintyDb: 0, passes: 2 });
+    expect(two.trimmedError.sd).toBeLessThan(one.trimmedError.sd / 2);
+    expect(two.trimmedYield).toBeGreaterThanOrEqual(one.trimmedYield);
+  });
   it('noise-free, exact device: the chosen code reproduces the board response within one step', () => {
     const exactDevice: TrimDevice = { ...rheostat, tolerance: 0 };
     const sim = simulateTrim(boards, { ...trim, device: exactDevice }, points, { measurementUncertaintyDb: 0 });
