@@ -11,7 +11,8 @@
  * of the product over points of P(accept | true value), measurement errors independent between points).
  */
 import { InvalidInputError } from '../errors';
-import { maskLimits, type SpecMask } from '../tolerance/yield';
+import { maskLimits, wilsonInterval, type ProportionInterval, type SpecMask } from '../tolerance/yield';
+import { summarizeSamples, type SampleSummary } from './statistics';
 import type { BoardSample } from './boards';
 import type { PlanTestPoint, ProductionPlan } from './check';
 import type { DecisionRule, MeasurementUncertainty } from './decision-rules';
@@ -52,7 +53,11 @@ export interface ProductionTestOptions {
 
 export interface TestPointAnalysis extends TestPoint {
   readonly gain: QuantityLimits;
+  /** Phase limits, when phase is tested. */
   readonly phase: QuantityLimits | null;
+  /** The nominal phase and its Monte Carlo distribution, tested or not. */
+  readonly nominalPhaseDeg: number;
+  readonly phaseDistribution: SampleSummary;
 }
 
 export interface PlanDiagnostic {
@@ -66,6 +71,8 @@ export interface ProductionTestDesign {
   readonly plan: ProductionPlan;
   /** Share of boards with every tested quantity inside its tolerance (true values). */
   readonly conformingShare: number;
+  /** Its 95 % Wilson score interval (the boards are a sample of the production). */
+  readonly conformingShareInterval: ProportionInterval;
   /** Expected share of boards the test accepts (measurement errors included). */
   readonly expectedAcceptedShare: number;
   readonly boards: number;
@@ -148,7 +155,7 @@ export function planProductionTest(boards: BoardSample, options: ProductionTestO
       if (q.tolerance.lower === -Infinity && q.tolerance.upper === Infinity) diagnostics.push({ code: 'NO_LIMIT', message: `${p.id} (${p.frequencyHz} Hz): no ${what} limit (the point is in no band of the mask)` });
       if (q.acceptance.lower > q.acceptance.upper) diagnostics.push({ code: 'EMPTY_ACCEPTANCE', message: `${p.id} (${p.frequencyHz} Hz): the guard band leaves no ${what} acceptance interval: every board fails` });
     }
-    return { ...p, gain, phase };
+    return { ...p, gain, phase, nominalPhaseDeg: resp.nominalPhaseDeg[i], phaseDistribution: summarizeSamples(resp.phaseDeg[i]) };
   });
   // Overall shares over the boards.
   let conforming = 0;
@@ -184,6 +191,7 @@ export function planProductionTest(boards: BoardSample, options: ProductionTestO
     points: analyses,
     plan: { testPoints, ...(options.interpolation ? { interpolation: options.interpolation } : {}), ...(options.frequencyTolerance !== undefined ? { frequencyTolerance: options.frequencyTolerance } : {}) },
     conformingShare: conforming / boards.count,
+    conformingShareInterval: wilsonInterval(conforming, boards.count),
     expectedAcceptedShare: accepted / boards.count,
     boards: boards.count,
     trim,

@@ -6,8 +6,9 @@
  *   R_P (producer's risk) = P(Y inside T, Ym outside A) = int_{y in T} g0(y) (1 - P(A | y)) dy
  * with P(A | y) = Phi((AU - y)/u) - Phi((AL - y)/u). The integrals are done numerically (adaptive
  * Gauss-Legendre, panels starting at the limits and at a few u around the acceptance limits, where the
- * integrand bends) for a normal process, and exactly against the empirical measure for Monte Carlo
- * samples (the average of P(A | y_i) over the non-conforming samples, and so on).
+ * integrand bends) for a normal process and for a histogram (uniform density within each bin), and
+ * exactly against the empirical measure for Monte Carlo samples (the average of P(A | y_i) over the
+ * non-conforming samples, and so on).
  * Identity checked by the tests: P(accept) = P(conform) - R_P + R_C.
  * Kernels: NaN inputs give NaN results, no throw.
  */
@@ -18,7 +19,9 @@ import { integrate } from './quadrature';
 /** The distribution of a test point's true value over the production population. */
 export type ProcessModel =
   | { readonly kind: 'normal'; readonly mean: number; readonly sd: number }
-  | { readonly kind: 'samples'; readonly values: ArrayLike<number> };
+  | { readonly kind: 'samples'; readonly values: ArrayLike<number> }
+  /** Counts in bins [edges[i], edges[i+1]), the density uniform within a bin (edges ascending, one more than counts). */
+  | { readonly kind: 'histogram'; readonly edges: ArrayLike<number>; readonly counts: ArrayLike<number> };
 
 export interface GlobalRisks {
   /** P(true value inside the tolerance): the yield a perfect measurement would find. */
@@ -56,7 +59,49 @@ export function rejectionGivenTrue(y: number, acceptance: Interval, u: number): 
 
 /** The global risks of accepting by `acceptance` a quantity that must lie in `tolerance`, measured with standard uncertainty u. */
 export function globalRisks(process: ProcessModel, tolerance: Interval, acceptance: Interval, u: number): GlobalRisks {
-  return process.kind === 'normal' ? normalRisks(process.mean, process.sd, tolerance, acceptance, u) : sampleRisks(process.values, tolerance, acceptance, u);
+  switch (process.kind) {
+    case 'normal':
+      return normalRisks(process.mean, process.sd, tolerance, acceptance, u);
+    case 'samples':
+      return sampleRisks(process.values, tolerance, acceptance, u);
+    case 'histogram':
+      return histogramRisks(process.edges, process.counts, tolerance, acceptance, u);
+  }
+}
+
+const NAN_RISKS: GlobalRisks = { conformance: NaN, acceptance: NaN, consumerRisk: NaN, producerRisk: NaN };
+
+/**
+ * A histogram (e.g. tolerance's streamed Monte Carlo bins): in each bin the density is count / (N w);
+ * the integrals over the bin's parts inside and outside the tolerance are done by the same quadrature.
+ */
+function histogramRisks(edges: ArrayLike<number>, counts: ArrayLike<number>, t: Interval, a: Interval, u: number): GlobalRisks {
+  if (edges.length !== counts.length + 1 || counts.length === 0) return NAN_RISKS;
+  let total = 0;
+  for (let i = 0; i < counts.length; i++) total += counts[i];
+  if (!(total > 0)) return NAN_RISKS;
+  const breaks: number[] = [t.lower, t.upper];
+  if (u > 0) for (const limit of [a.lower, a.upper]) if (Number.isFinite(limit)) for (const k of STEP_BREAKS_U) breaks.push(limit + k * u);
+  const accept = (y: number) => acceptanceGivenTrue(y, a, u);
+  const reject = (y: number) => rejectionGivenTrue(y, a, u);
+  let conformance = 0;
+  let consumerRisk = 0;
+  let producerRisk = 0;
+  for (let i = 0; i < counts.length; i++) {
+    const lo = edges[i];
+    const hi = edges[i + 1];
+    if (!(hi > lo) || counts[i] === 0) continue;
+    const density = counts[i] / (total * (hi - lo));
+    const inLo = Math.max(lo, t.lower);
+    const inHi = Math.min(hi, t.upper);
+    if (inHi > inLo) {
+      conformance += density * (inHi - inLo);
+      producerRisk += density * integrate(reject, inLo, inHi, breaks, REL_TOL);
+    }
+    if (t.lower > lo) consumerRisk += density * integrate(accept, lo, Math.min(hi, t.lower), breaks, REL_TOL);
+    if (t.upper < hi) consumerRisk += density * integrate(accept, Math.max(lo, t.upper), hi, breaks, REL_TOL);
+  }
+  return { conformance, acceptance: conformance - producerRisk + consumerRisk, consumerRisk, producerRisk };
 }
 
 function sampleRisks(values: ArrayLike<number>, t: Interval, a: Interval, u: number): GlobalRisks {
@@ -75,14 +120,12 @@ function sampleRisks(values: ArrayLike<number>, t: Interval, a: Interval, u: num
       rc += acceptanceGivenTrue(y, a, u);
     }
   }
-  if (n === 0) return { conformance: NaN, acceptance: NaN, consumerRisk: NaN, producerRisk: NaN };
+  if (n === 0) return NAN_RISKS;
   return { conformance: conform / n, acceptance: (conform - rp + rc) / n, consumerRisk: rc / n, producerRisk: rp / n };
 }
 
 function normalRisks(mean: number, sd: number, t: Interval, a: Interval, u: number): GlobalRisks {
-  if (!Number.isFinite(mean) || !(sd >= 0) || !(u >= 0) || Number.isNaN(t.lower) || Number.isNaN(t.upper)) {
-    return { conformance: NaN, acceptance: NaN, consumerRisk: NaN, producerRisk: NaN };
-  }
+  if (!Number.isFinite(mean) || !(sd >= 0) || !(u >= 0) || Number.isNaN(t.lower) || Number.isNaN(t.upper)) return NAN_RISKS;
   if (sd === 0) {
     const inT = mean >= t.lower && mean <= t.upper;
     const pa = acceptanceGivenTrue(mean, a, u);

@@ -121,6 +121,12 @@ describe('the production-test plan on Monte Carlo boards', () => {
       expect(p.gain.distribution!.count).toBe(2000);
     }
     expect(d.plan.testPoints.map((p) => p.gainLimitsDb)).toEqual(d.points.map((p) => p.gain.acceptance));
+    // Phase is not tested here, but its distribution is reported; at the centre it sits near 0 degrees.
+    expect(d.points[2].phase).toBeNull();
+    expect(Math.abs(d.points[2].nominalPhaseDeg)).toBeLessThan(1);
+    expect(d.points[2].phaseDistribution.count).toBe(2000);
+    expect(d.conformingShareInterval.low).toBeLessThanOrEqual(d.conformingShare);
+    expect(d.conformingShareInterval.high).toBeGreaterThanOrEqual(d.conformingShare);
     expect(d.expectedAcceptedShare).toBeLessThanOrEqual(d.conformingShare + 1e-12 + d.points.reduce((s, p) => s + p.gain.falseAccept, 0));
   });
 

@@ -155,6 +155,22 @@ describe('global risks (JCGM 106:2012 clause 9) against mpmath quadrature', () =
     expect(Math.abs(fromSamples.producerRisk - exact.producerRisk)).toBeLessThan(0.02 * exact.producerRisk);
     expect(Math.abs(fromSamples.conformance - exact.conformance)).toBeLessThan(1e-4);
   });
+  it('a fine histogram of the normal process (exact bin masses) converges to the normal risks', () => {
+    const mean = 0.1;
+    const sd = 0.4;
+    const bins = 4000;
+    const edges = Float64Array.from({ length: bins + 1 }, (_, i) => mean - 8 * sd + (16 * sd * i) / bins);
+    const counts = Float64Array.from({ length: bins }, (_, i) => intervalProbability(mean, sd, { lower: edges[i], upper: edges[i + 1] }));
+    const t = { lower: -1, upper: 1 };
+    const a = acceptanceInterval(t, 0.1);
+    const exact = globalRisks({ kind: 'normal', mean, sd }, t, a, 0.05);
+    const hist = globalRisks({ kind: 'histogram', edges, counts }, t, a, 0.05);
+    // Bin width h = 1.6e-3: replacing the density by its bin average errs by O(h^2) relative.
+    for (const key of ['consumerRisk', 'producerRisk', 'conformance', 'acceptance'] as const) {
+      expect(Math.abs(hist[key] - exact[key])).toBeLessThan(1e-4 * exact[key]);
+    }
+    expect(globalRisks({ kind: 'histogram', edges: [0, 1], counts: [1, 2] }, t, a, 0.05).consumerRisk).toBeNaN();
+  });
   it('a perfect measurement (u = 0) has no risks; a zero-width process is a point', () => {
     const t = { lower: -1, upper: 1 };
     const g = globalRisks({ kind: 'normal', mean: 0, sd: 0.5 }, t, t, 0);
