@@ -514,3 +514,12 @@ export function sizeTrim(boards: BoardSample, base: Omit<TrimSpec, 'device'>, ca
 export const STANDARD_RHEOSTATS: readonly TrimDevice[] = [1e3, 2e3, 5e3, 1e4, 2e4, 5e4, 1e5].flatMap((rab) =>
   [32, 64, 128, 256].map((steps): TrimDevice => ({ kind: 'rheostat', endToEndOhms: rab, steps, wiperOhms: 75, tolerance: DEFAULT_RHEOSTAT_TOLERANCE })),
 );
+
+/** Resistor-bank candidates: every LSB with every bit count (for sizing), with the given part options. */
+export function resistorBankOptions(
+  lsbOhms: readonly number[],
+  bits: readonly number[],
+  parts: { readonly bitTolerance?: number; readonly switchOnOhms?: number } = {},
+): TrimDevice[] {
+  return lsbOhms.flatMap((lsb) => bits.map((b): TrimDevice => ({ kind: 'resistor-bank', bits: b, lsbOhms: lsb, ...parts })));
+}

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { gicInductorBandpass } from '../helpers/gic-circuits';
 import { sampleBoards } from '../../src/production/boards';
-import { chooseCode, resolveTrimDevice, simulateTrim, sizeTrim, trimRange, trimTable, type TrimDevice, type TrimSpec } from '../../src/production/trim';
+import { chooseCode, resistorBankOptions, resolveTrimDevice, simulateTrim, sizeTrim, trimRange, trimTable, type TrimDevice, type TrimSpec } from '../../src/production/trim';
 import { runMonteCarlo } from '../../src/tolerance/monte-carlo';
 import { GicladderError } from '../../src/errors';
 
@@ -151,6 +151,15 @@ describe('the firmware trim on Monte Carlo boards', () => {
       expect(Math.abs(sim.trimmedGainDb[b] - sim.predictedGainDb[b])).toBeLessThanOrEqual(step);
       expect(Math.abs(sim.trimmedGainDb[b] - sim.table.targetGainDb)).toBeLessThanOrEqual(step);
     }
+  });
+  it('a binary resistor bank in series with a reduced fixed part trims too (sized from bank options)', () => {
+    const banks = resistorBankOptions([2, 5, 10], [5, 6, 7], { bitTolerance: 0.01, switchOnOhms: 0.5 });
+    const s = sizeTrim(boards, { targets: [{ element: 'G1_R5', placement: 'series' }], frequencyHz: 7340 }, banks, points, { requiredShare: 0.99, measurementUncertaintyDb: 0.02 });
+    expect(s.chosen?.kind).toBe('resistor-bank');
+    const sim = s.simulation!;
+    expect(sim.trimmedYield).toBeGreaterThanOrEqual(sim.untrimmedYield);
+    expect(sim.table.fixedOhms[0].ohms).toBeGreaterThan(0);
+    expect(sim.table.fixedOhms[0].ohms).toBeLessThan(1000);
   });
   it('is deterministic for a seed and leaves the engine nominal', () => {
     const a = simulateTrim(boards, trim, points, { measurementUncertaintyDb: 0.05, seed: 4 });
