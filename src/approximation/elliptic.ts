@@ -29,14 +29,33 @@ function jacobiNearQuarterPeriod(i: number, order: number, capK: number, k: numb
   return { sn: cn / dn, cn: (kp * sn) / dn, dn: kp / dn };
 }
 
-export function ellipticPrototype(order: number, rippleDb: number, attenuationDb: number): Zpk {
+/** The moduli of an elliptic design: ripple factor eps, discrimination k1 (with k1'), selectivity k (with k'), K(k). */
+function ellipticModuli(order: number, rippleDb: number, attenuationDb: number) {
   const epsSq = powerRatioMinusOne(rippleDb);
   const stopSq = powerRatioMinusOne(attenuationDb);
   const eps = Math.sqrt(epsSq);
   const k1 = Math.sqrt(epsSq / stopSq);
   const k1p = Math.sqrt((stopSq - epsSq) / stopSq); // sqrt(1 - k1^2), complement form
   const { k, kp } = ellipticDegree(order, k1, k1p);
-  const capK = completeEllipticK(k, kp);
+  return { eps, k1, k1p, k, kp, capK: completeEllipticK(k, kp) };
+}
+
+/**
+ * The positive zeros of the elliptic rational function R_N(w) (the reflection zeros of the equally
+ * terminated ladder: the passband frequencies of zero loss), ascending: sn(i K/N, k) for
+ * i = N-1, N-3, ... > 0 [O, sec. 3: R_N has zeros at cd((2l-1) K/N) = sn((N-2l+1) K/N) and poles at
+ * 1/(k cd(...)), so each reflection zero is 1/(k w_z) of its transmission zero w_z]. Odd orders also
+ * have a zero at w = 0 (i = 0), not listed.
+ */
+export function ellipticReflectionOmegas(order: number, rippleDb: number, attenuationDb: number): number[] {
+  const { k, kp, capK } = ellipticModuli(order, rippleDb, attenuationDb);
+  const out: number[] = [];
+  for (let i = 1 + (order % 2); i < order; i += 2) out.push(jacobiNearQuarterPeriod(i, order, capK, k, kp).sn);
+  return out;
+}
+
+export function ellipticPrototype(order: number, rippleDb: number, attenuationDb: number): Zpk {
+  const { eps, k1, k1p, k, kp, capK } = ellipticModuli(order, rippleDb, attenuationDb);
   const v0 = (capK * inverseJacobiSc(1 / eps, k1p, k1)) / (order * completeEllipticK(k1, k1p)); // v0 K
   const { sn: sv, cn: cv, dn: dv } = jacobiElliptic(v0, kp, k);
 

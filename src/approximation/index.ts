@@ -11,6 +11,7 @@ export {
 } from './prototype.js';
 export type { BesselNormalization } from './bessel.js';
 export { reverseBesselCoefficients } from './bessel.js';
+export { lowpassCharacteristic, type LowpassCharacteristic } from './characteristic.js';
 export { estimateOrder, FILTER_TYPES, type FilterType, type OrderMask, type OrderEstimate, type BandEdgesHz } from './order.js';
 export { type Zpk, evaluateZpk, gainDbAt, frequencyAtAttenuation } from './zpk.js';
 export {

@@ -31,7 +31,9 @@ import { Fraction, Q0, Q1, fractionFromDouble, fractionToNumber } from '../algeb
 import { Poly } from '../algebra/poly';
 import { InvalidInputError, UnrealizableError, requireFinite, requireOneOf } from '../errors';
 import { extractLadder, type ExtractionResult, type Immittance } from './extraction';
-import { moveTransmissionZeroToInfinity } from './even-order-modification';
+import { moveReflectionZeros, moveTransmissionZeroToInfinity } from './even-order-modification';
+import { factorFromCharacteristic } from './characteristic-factorization';
+import type { LowpassCharacteristic } from '../approximation/index';
 import { peakPowerRatio } from './peak-gain';
 import { prototypePolynomials, type PrototypeZpk } from './prototype-polynomials';
 import { factorFeldtkeller } from './reflection';
@@ -69,6 +71,14 @@ export interface SynthesisOptions {
   tankOrder?: 'auto' | readonly number[];
   /** Default 'auto'; see {@link EvenOrderModification}. */
   evenOrder?: EvenOrderModification;
+  /**
+   * The zeros of the prototype's characteristic function when the approximation knows them exactly
+   * (approximation stage, `lowpassCharacteristic`; {@link designLadderPrototype} passes them). With
+   * terminations lossless at the passband maxima, F(s) is then formed from them instead of being found
+   * numerically (characteristic-factorization.ts), which is what makes high-order elliptic and inverse
+   * Chebyshev ladders accurate. Without them, or for other terminations, F comes from reflection.ts.
+   */
+  characteristic?: LowpassCharacteristic | null;
 }
 
 export interface LadderSynthesis {
@@ -118,6 +128,7 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   let zpk: PrototypeZpk = prototype;
   let polys = prototypePolynomials(zpk);
   const n = polys.E.degree;
+  let characteristic = validCharacteristic(options.characteristic, n);
   if (polys.P.degree > n) {
     throw new UnrealizableError('UNREALIZABLE', 'prototype.zeros', prototype.zeros.length, 'more zeros than poles: not a lowpass response');
   }
@@ -134,14 +145,19 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
     let reflectionOmega = 0;
     if (evenOrder === 'move-zero-and-reflection' || (evenOrder === 'auto' && equalAsked)) {
       const peak = peakPowerRatio(zpk, polys.E, polys.P);
-      const dc = polys.E.coefficient(0).div(polys.P.coefficient(0));
-      const f = peak > 1 + TERMINATION_TOLERANCE ? factorFeldtkeller(polys.E, polys.P, dc.mul(dc).mul(fractionFromDouble(1 / peak)), 'minimum-phase') : null;
-      if (f && f.jAxisOmegaSquared.length > 0) reflectionOmega = Math.sqrt(fractionToNumber(f.jAxisOmegaSquared[0]));
-      else if (evenOrder === 'move-zero-and-reflection') {
+      if (peak > 1 + TERMINATION_TOLERANCE && characteristic && characteristic.reflectionOmegasRadPerS.length > 0) {
+        reflectionOmega = characteristic.reflectionOmegasRadPerS[0];
+      } else if (peak > 1 + TERMINATION_TOLERANCE && !characteristic) {
+        const dc = polys.E.coefficient(0).div(polys.P.coefficient(0));
+        const f = factorFeldtkeller(polys.E, polys.P, dc.mul(dc).mul(fractionFromDouble(1 / peak)), 'minimum-phase');
+        if (f && f.jAxisOmegaSquared.length > 0) reflectionOmega = Math.sqrt(fractionToNumber(f.jAxisOmegaSquared[0]));
+      }
+      if (reflectionOmega === 0 && evenOrder === 'move-zero-and-reflection') {
         diagnostics.push({ code: 'NO_REFLECTION_ZERO_TO_MOVE', message: 'the DC gain is already the passband maximum: only the transmission zero was moved' });
       }
     }
     const highest = Math.sqrt(fractionToNumber(polys.zeroOmegaSquared[polys.zeroOmegaSquared.length - 1]));
+    if (characteristic) characteristic = moveReflectionZeros(zpk, reflectionOmega, characteristic);
     zpk = moveTransmissionZeroToInfinity(zpk, reflectionOmega);
     polys = prototypePolynomials(zpk);
     diagnostics.push({
@@ -155,7 +171,8 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
       });
     }
   }
-  const { E, P } = polys;
+  const { P } = polys;
+  let E = polys.E;
   const dcRatio = E.coefficient(0).div(P.coefficient(0)); // E(0)/P(0) = gain / H(0)
   const zeroCount = polys.zeroOmegaSquared.length;
   const orders = tankOrders(options.tankOrder, zeroCount);
@@ -189,11 +206,27 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
       }
     }
     const sigma2 = t.mul(dcRatio).mul(dcRatio);
-    const fact = factorFeldtkeller(E, P, sigma2, choice);
-    if (!fact) {
-      throw new UnrealizableError('UNREALIZABLE', 'prototype', prototype, '|S21| would exceed 1 on the j-axis: the response is not passive with these terminations');
+    // Lossless at the passband maxima (t * peak = 1): the reflection zeros are on the j-axis.
+    const lossless = requestedLoad === undefined || (t.equals(Q1) && peak <= 1 + TERMINATION_TOLERANCE);
+    const analytic = characteristic && lossless ? factorFromCharacteristic(P, sigma2, characteristic, zpk.poles) : null;
+    let F: Poly;
+    if (analytic) {
+      F = analytic.F;
+      E = analytic.E;
+      zpk = { zeros: zpk.zeros, poles: analytic.poles, gain: zpk.gain * poleMagnitudeRatio(analytic.poles, zpk.poles) };
+      if (analytic.largestPoleMove > POLE_MOVE_NOTE) {
+        diagnostics.push({
+          code: 'POLES_REPOLISHED',
+          message: `the prototype's poles moved by up to ${analytic.largestPoleMove.toExponential(2)} (relative) onto the roots of its characteristic function`,
+        });
+      }
+    } else {
+      const fact = factorFeldtkeller(E, P, sigma2, choice);
+      if (!fact) {
+        throw new UnrealizableError('UNREALIZABLE', 'prototype', prototype, '|S21| would exceed 1 on the j-axis: the response is not passive with these terminations');
+      }
+      F = fact.F;
     }
-    const F = fact.F;
     const wanted = form ?? 'series-first';
     W =
       wanted === 'series-first'
@@ -284,6 +317,41 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   const ladder = toFloatLadder(exactLadder, keptLoad);
   const dcTransfer = doubly ? fractionToNumber((realizedLoad as Fraction).div(Rs.add(realizedLoad as Fraction))) : 1;
   return { ladder, exactLadder, realizedPrototype: zpk, dcTransfer, tankOrder: usedOrder, diagnostics };
+}
+
+/** Relative pole move above which the re-derivation of E is reported: far above double rounding. */
+const POLE_MOVE_NOTE = 1e-10;
+
+/** prod |p'| / prod |p|: keeps H(0) when the poles move from `old` to `next` (same count, same signs). */
+function poleMagnitudeRatio(next: readonly { re: number; im: number }[], old: readonly { re: number; im: number }[]): number {
+  let r = 1;
+  for (let i = 0; i < next.length; i++) r *= Math.hypot(next[i].re, next[i].im) / Math.hypot(old[i].re, old[i].im);
+  return r;
+}
+
+/**
+ * The characteristic option, checked against the prototype's order: F must have the degree of E (the
+ * zeros counted with multiplicity). A mismatch is the caller's error.
+ */
+function validCharacteristic(c: LowpassCharacteristic | null | undefined, n: number): LowpassCharacteristic | undefined {
+  if (c === undefined || c === null) return undefined;
+  const omegas = c.reflectionOmegasRadPerS;
+  if (
+    typeof c !== 'object' ||
+    !Number.isInteger(c.originMultiplicity) ||
+    c.originMultiplicity < 0 ||
+    !Array.isArray(omegas) ||
+    omegas.some((w, i) => !(Number.isFinite(w) && w > 0 && (i === 0 || w > omegas[i - 1]))) ||
+    c.originMultiplicity + 2 * omegas.length !== n
+  ) {
+    throw new InvalidInputError(
+      'INVALID_ARGUMENT',
+      'characteristic',
+      c,
+      `must be { originMultiplicity, reflectionOmegasRadPerS: ascending positive numbers } with originMultiplicity + 2 * count = ${n}, the order`,
+    );
+  }
+  return c;
 }
 
 /**

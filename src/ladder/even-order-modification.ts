@@ -20,6 +20,7 @@
 import { type Complex, cDiv, cSqrt } from '../algebra/complex';
 import type { PrototypeZpk } from './prototype-polynomials';
 import { normalizedMagnitude } from './peak-gain';
+import type { LowpassCharacteristic } from '../approximation/index';
 
 export interface ModifiedPrototype {
   readonly zeros: Complex[];
@@ -33,12 +34,7 @@ export interface ModifiedPrototype {
  */
 export function moveTransmissionZeroToInfinity(zpk: PrototypeZpk, lowestReflectionOmega = 0): ModifiedPrototype {
   const upperZeros = zpk.zeros.filter((z) => z.im > 0);
-  const highest = upperZeros.reduce((m, z) => Math.max(m, z.im), 0);
-  const wz2 = highest * highest;
-  const c = lowestReflectionOmega * lowestReflectionOmega;
-  const b = (1 - c) / (wz2 - 1); // Eq. M1
-  const a = wz2 * b;
-  const map = (X: Complex): Complex => cDiv({ re: X.re - c, im: X.im }, { re: a - b * X.re, im: -b * X.im }); // Eq. M2
+  const { highest, map } = modificationMap(zpk, lowestReflectionOmega);
 
   const zeros: Complex[] = [];
   for (const z of upperZeros) {
@@ -63,10 +59,41 @@ export function moveTransmissionZeroToInfinity(zpk: PrototypeZpk, lowestReflecti
   zeros.sort((u, v) => u.im - v.im);
   poles.sort((u, v) => u.im - v.im || u.re - v.re);
   // Gain: |H'(0)| = |H(j sqrt(c))|, with H'(0) real and of the sign of H(0).
-  const target = Math.abs(zpk.gain * dcProduct(zpk)) * normalizedMagnitude(zpk, { re: 0, im: Math.sqrt(c) });
+  const target = Math.abs(zpk.gain * dcProduct(zpk)) * normalizedMagnitude(zpk, { re: 0, im: lowestReflectionOmega });
   const unit = dcProduct({ zeros, poles, gain: 1 });
   const gain = (Math.sign(zpk.gain * dcProduct(zpk)) * target) / unit;
   return { zeros, poles, gain };
+}
+
+/** The map of Eq. M2 for a prototype and the reflection zero moved to DC (0: none). */
+function modificationMap(zpk: PrototypeZpk, lowestReflectionOmega: number): { highest: number; map: (X: Complex) => Complex } {
+  const highest = zpk.zeros.reduce((m, z) => Math.max(m, z.im), 0);
+  const wz2 = highest * highest;
+  const c = lowestReflectionOmega * lowestReflectionOmega;
+  const b = (1 - c) / (wz2 - 1); // Eq. M1
+  // a - b X = b (wz^2 - X), formed without cancellation for X near wz^2.
+  const map = (X: Complex): Complex => cDiv({ re: X.re - c, im: X.im }, { re: b * (wz2 - X.re), im: -b * X.im }); // Eq. M2
+  return { highest, map };
+}
+
+/**
+ * The reflection zeros of the modified response: the same map (Eq. M2) applied to their squared
+ * frequencies; the one moved to DC (`lowestReflectionOmega`, bit-equal to the lowest listed) becomes a
+ * double zero at the origin, s^2 in F.
+ */
+export function moveReflectionZeros(zpk: PrototypeZpk, lowestReflectionOmega: number, characteristic: LowpassCharacteristic): LowpassCharacteristic {
+  const { map } = modificationMap(zpk, lowestReflectionOmega);
+  let originMultiplicity = characteristic.originMultiplicity;
+  const omegas: number[] = [];
+  for (const w of characteristic.reflectionOmegasRadPerS) {
+    if (lowestReflectionOmega > 0 && w === lowestReflectionOmega) {
+      originMultiplicity += 2;
+      continue;
+    }
+    omegas.push(Math.sqrt(map({ re: w * w, im: 0 }).re));
+  }
+  omegas.sort((u, v) => u - v);
+  return { originMultiplicity, reflectionOmegasRadPerS: omegas };
 }
 
 /** prod(-z) / prod(-p): H(0) / gain. */

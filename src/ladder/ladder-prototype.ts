@@ -2,14 +2,18 @@
  * The contract function of this stage (DESIGN.md): a normalised lowpass prototype of a family and order
  * (approximation stage), synthesised as an LC ladder (darlington.ts).
  */
-import { lowpassPrototype, type LowpassPrototypeParams } from '../approximation/index';
+import { lowpassCharacteristic, lowpassPrototype, type LowpassPrototypeParams } from '../approximation/index';
 import { InvalidInputError } from '../errors';
 import { synthesizeLadder, type LadderSynthesis, type SynthesisOptions } from './darlington';
 import type { Ladder } from './types';
 
 export type LadderPrototypeParams = LowpassPrototypeParams & SynthesisOptions;
 
-/** The prototype and its synthesis, with diagnostics (the even-order modifications, a computed load...). */
+/**
+ * The prototype and its synthesis, with diagnostics (the even-order modifications, a computed load...).
+ * The approximation stage's exact reflection zeros (`lowpassCharacteristic`) go with it, so equally
+ * terminated elliptic and inverse Chebyshev ladders keep their accuracy to order 15.
+ */
 export function designLadderPrototype(p: LadderPrototypeParams): LadderSynthesis & { prototype: ReturnType<typeof lowpassPrototype> } {
   if (typeof p !== 'object' || p === null) throw new InvalidInputError('INVALID_ARGUMENT', 'prototype', p, 'must be an object');
   const prototype = lowpassPrototype(p);
@@ -20,6 +24,7 @@ export function designLadderPrototype(p: LadderPrototypeParams): LadderSynthesis
     reflectionZeros: p.reflectionZeros,
     tankOrder: p.tankOrder,
     evenOrder: p.evenOrder,
+    characteristic: lowpassCharacteristic(p),
   });
   return { ...synthesis, prototype };
 }
