@@ -13,6 +13,7 @@ export * from './ladder/index';
 export * from './transform/index';
 export * from './converter/index';
 export * from './substitution/index';
+export * from './tolerance/index';
 export * from './selection/index';
 export * from './spec/index';
 export * from './export/index';
