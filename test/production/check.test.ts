@@ -75,6 +75,30 @@ describe('CSV reader', () => {
     expect(csvError(() => checkMeasurements(plan, 'board,frequency_hz,gain_db\n"A,1000,-6')).line).toBe(2);
     expect(csvError(() => checkMeasurements(plan, 'board,freq,frequency_hz,gain_db\n')).column).toBe('frequency_hz');
   });
+  it('reads back what was written, whatever the line endings, quoting, comments and column order (fast-check)', () => {
+    const noNegZero = (x: number) => (x === 0 ? 0 : x); // String(-0) is '0': not a reader matter
+    const row = fc.record({
+      board: fc.stringMatching(/^[A-Za-z0-9 ,"_-]{1,8}$/).filter((b) => b.trim().length > 0),
+      frequencyHz: fc.double({ min: 1e-3, max: 1e9, noNaN: true }),
+      gainDb: fc.double({ min: -200, max: 50, noNaN: true }).map(noNegZero),
+      phaseDeg: fc.option(fc.double({ min: -720, max: 720, noNaN: true }).map(noNegZero), { nil: undefined }),
+    });
+    fc.assert(
+      fc.property(fc.array(row, { maxLength: 20 }), fc.boolean(), fc.boolean(), fc.constantFrom(',', ';', '\t'), (rows, crlf, comments, sep) => {
+        const quote = (b: string) => `"${b.replace(/"/g, '""')}"`;
+        const eol = crlf ? '\r\n' : '\n';
+        const lines = [['Phase (deg)', 'Gain_dB', 'Board ID', 'frequency'].join(sep)];
+        rows.forEach((r, i) => {
+          if (comments && i % 3 === 0) lines.push('# comment', '');
+          lines.push([r.phaseDeg === undefined ? '' : String(r.phaseDeg), String(r.gainDb), quote(r.board), String(r.frequencyHz)].join(sep));
+        });
+        const reader = new MeasurementReader();
+        const got = lines.join(eol).split('\n').map((l) => reader.read(l)).filter((x) => x !== null);
+        expect(got.map(({ line: _line, ...rest }) => rest)).toEqual(rows.map((r) => (r.phaseDeg === undefined ? { board: r.board.trim(), frequencyHz: r.frequencyHz, gainDb: r.gainDb } : { ...r, board: r.board.trim() })));
+      }),
+      { numRuns: 200 },
+    );
+  });
   it('linesOfChunks re-cuts arbitrary chunks into the same lines (fast-check)', async () => {
     await fc.assert(
       fc.asyncProperty(fc.array(fc.string({ maxLength: 8 }), { maxLength: 12 }), fc.array(fc.integer({ min: 1, max: 7 }), { minLength: 1 }), async (parts, cuts) => {
