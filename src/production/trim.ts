@@ -147,7 +147,16 @@ export interface TrimSimulation {
   readonly simulatedBoards: number;
   /** The trimmed boards' responses at options.recordFrequenciesHz (null when not asked). */
   readonly responses: BoardResponses | null;
+  readonly diagnostics: readonly TrimDiagnostic[];
 }
+
+export interface TrimDiagnostic {
+  readonly code: 'TRIM_RANGE_EXHAUSTED' | 'TRIM_TABLE_NOT_MONOTONE' | 'TRIM_DEFAULT_AT_END';
+  readonly message: string;
+}
+
+/** Warn when more boards than this share end at the first or last code (the range is too small for them). */
+const RANGE_END_WARNING_SHARE = 0.005;
 
 interface ResolvedDevice {
   readonly device: TrimDevice;
@@ -440,7 +449,33 @@ function runTrim(
     pointErrors: points.map((p, i) => ({ frequencyHz: p.frequencyHz, untrimmed: summarizeSamples(upTo(errBefore[i])), trimmed: summarizeSamples(upTo(errAfter[i])) })),
     simulatedBoards: done,
     responses: recorder ? recorder.responses : null,
+    diagnostics: trimDiagnostics(table, atEnd, done, done === n ? codes : codes.slice(0, done)),
   };
+}
+
+function trimDiagnostics(table: TrimTable, atEnd: number, boards: number, codes: Int32Array): TrimDiagnostic[] {
+  const out: TrimDiagnostic[] = [];
+  if (atEnd > RANGE_END_WARNING_SHARE * boards) {
+    out.push({ code: 'TRIM_RANGE_EXHAUSTED', message: `${atEnd} of ${boards} boards ended at the first or last code: the trim range is too small for them` });
+  }
+  // Monotone over the codes the boards use (and the default): where the firmware works.
+  let lo = table.defaultCode;
+  let hi = table.defaultCode;
+  for (const c of codes) {
+    lo = Math.min(lo, c);
+    hi = Math.max(hi, c);
+  }
+  const g = table.entries.slice(lo, hi + 1).map((e) => e.gainDb);
+  const rising = g.every((x, i) => i === 0 || x >= g[i - 1]);
+  const falling = g.every((x, i) => i === 0 || x <= g[i - 1]);
+  if (!rising && !falling) {
+    out.push({ code: 'TRIM_TABLE_NOT_MONOTONE', message: `the gain at the trim frequency is not monotone in the code over the codes used (${lo}..${hi}): a measured offset may have two answers` });
+  }
+  const last = table.entries.length - 1;
+  if (table.defaultCode === 0 || table.defaultCode === last) {
+    out.push({ code: 'TRIM_DEFAULT_AT_END', message: `the default code ${table.defaultCode} is at the end of the range: the device cannot reach the design value from both sides` });
+  }
+  return out;
 }
 
 export interface TrimSizingOptions extends TrimSimulationOptions {

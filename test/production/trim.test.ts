@@ -130,6 +130,7 @@ describe('the firmware trim on Monte Carlo boards', () => {
     expect(sim.trimmedYield).toBeGreaterThan(0.5); // the trim is worth it here: untrimmed about 13 %
     expect(sim.trimmedError.sd).toBeLessThan(sim.untrimmedError.sd / 3);
     expect(sim.atRangeEnd).toBe(0);
+    expect(sim.diagnostics).toEqual([]);
     expect(sim.simulatedBoards).toBe(1000);
     // At the trim point itself (7340 Hz) the spread about the design gain shrinks as at the trim frequency.
     expect(sim.pointErrors[0].trimmed.sd).toBeLessThan(sim.pointErrors[0].untrimmed.sd / 3);
@@ -160,6 +161,15 @@ describe('the firmware trim on Monte Carlo boards', () => {
     expect(sim.trimmedYield).toBeGreaterThanOrEqual(sim.untrimmedYield);
     expect(sim.table.fixedOhms[0].ohms).toBeGreaterThan(0);
     expect(sim.table.fixedOhms[0].ohms).toBeLessThan(1000);
+  });
+  it('warns when the range runs out and the default code sits at an end', () => {
+    const tiny: TrimDevice = { kind: 'rheostat', endToEndOhms: 900, steps: 64, wiperOhms: 75, tolerance: 0.2 }; // R(64) = 975 < 1000
+    const sim = simulateTrim(boards, { ...trim, device: tiny }, points);
+    expect(sim.diagnostics.map((d) => d.code)).toEqual(['TRIM_RANGE_EXHAUSTED', 'TRIM_DEFAULT_AT_END']);
+  });
+  it('warns when the table is not monotone where the boards use it (trimming at the bandpass peak)', () => {
+    const sim = simulateTrim(boards, { ...trim, frequencyHz: 10000 }, points);
+    expect(sim.diagnostics.map((d) => d.code)).toContain('TRIM_TABLE_NOT_MONOTONE');
   });
   it('is deterministic for a seed and leaves the engine nominal', () => {
     const a = simulateTrim(boards, trim, points, { measurementUncertaintyDb: 0.05, seed: 4 });
