@@ -7,6 +7,9 @@ import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { GicladderError } from '../errors';
 import { runPrototypeCommand } from './prototype-command';
+import type { CliIo } from './io';
+import { runDesignCommand, runHeaderCommand, runNetlistCommand } from './design-command';
+import { createProgress } from './progress';
 
 export const EXIT_OK = 0;
 export const EXIT_CHECK_FAILED = 1;
@@ -14,10 +17,7 @@ export const EXIT_BAD_INPUT = 2;
 /** An unexpected exception: a bug, not bad input (sysexits EX_SOFTWARE). */
 export const EXIT_INTERNAL = 70;
 
-export interface CliIo {
-  stdout(text: string): void;
-  stderr(text: string): void;
-}
+export type { CliIo } from './io';
 
 /** Thrown by command actions to end with an exit code after their output. */
 class ExitRequest extends Error {
@@ -34,6 +34,42 @@ export function buildProgram(io: CliIo): Command {
     .showHelpAfterError()
     .exitOverride()
     .configureOutput({ writeOut: io.stdout, writeErr: io.stderr });
+
+  program
+    .command('design')
+    .description('design from a design file and write everything: report.json, <name>.h, <name>.cir and the plots')
+    .argument('<spec.json>', 'the design file')
+    .option('--out <dir>', 'output folder', 'out')
+    .addHelpText('after', '\nExample:\n  gicladder design examples/vibration-antialias-lowpass.json --out build/filter\n')
+    .action((specPath: string, opts: { out: string }) => {
+      const progress = createProgress('Monte Carlo');
+      try {
+        const code = runDesignCommand(specPath, opts, io, (done, total) => progress.update(done, total));
+        if (code !== EXIT_OK) throw new ExitRequest(code);
+      } finally {
+        progress.finish();
+      }
+    });
+
+  program
+    .command('header')
+    .description('the C header alone; with -o, the file is rewritten only if its content changed')
+    .argument('<spec.json>', 'the design file')
+    .option('-o, --output <file>', 'write to this file instead of stdout')
+    .addHelpText('after', '\nExample (in a Makefile or CMake custom command):\n  gicladder header filter.json -o generated/filter.h\n')
+    .action((specPath: string, opts: { output?: string }) => {
+      runHeaderCommand(specPath, opts, io);
+    });
+
+  program
+    .command('netlist')
+    .description("the SPICE netlist alone (VIN drives node 'in', the output node is 'out')")
+    .argument('<spec.json>', 'the design file')
+    .option('-o, --output <file>', 'write to this file instead of stdout')
+    .addHelpText('after', '\nExample:\n  gicladder netlist filter.json -o filter.cir && ngspice -b filter.cir\n')
+    .action((specPath: string, opts: { output?: string }) => {
+      runNetlistCommand(specPath, opts, io);
+    });
 
   program
     .command('prototype')

@@ -143,7 +143,7 @@ export function toSpiceNetlist(design: FilterDesign, options: SpiceNetlistOption
   const hi = Array.isArray(e) ? e[1] : (e as number);
   return circuitToSpice(design.circuit, {
     title: `${design.spec.name}: ${GENERATOR}, design ${designHashOf(design)}`,
-    input: TRANSFER.input,
+    input: 'in',
     output: TRANSFER.output,
     acSweep: { pointsPerDecade: options.pointsPerDecade ?? 50, startHz: options.startHz ?? lo / 100, stopHz: options.stopHz ?? hi * 100 },
   });
