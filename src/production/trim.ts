@@ -158,7 +158,8 @@ export interface TrimDiagnostic {
 /** Warn when more boards than this share end at the first or last code (the range is too small for them). */
 const RANGE_END_WARNING_SHARE = 0.005;
 
-interface ResolvedDevice {
+/** A validated device: its code count, centre code and R(code, deviations). */
+export interface ResolvedDevice {
   readonly device: TrimDevice;
   readonly codes: number;
   readonly centre: number;
