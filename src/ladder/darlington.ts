@@ -34,7 +34,7 @@ import { extractLadder, type ExtractionResult, type Immittance } from './extract
 import { moveReflectionZeros, moveTransmissionZeroToInfinity } from './even-order-modification';
 import { factorFromCharacteristic } from './characteristic-factorization';
 import type { LowpassCharacteristic } from '../approximation/index';
-import { peakPowerRatio } from './peak-gain';
+import { normalizedMagnitude, peakPowerRatio } from './peak-gain';
 import { prototypePolynomials, type PrototypeZpk } from './prototype-polynomials';
 import { factorFeldtkeller } from './reflection';
 import {
@@ -144,7 +144,7 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
     }
     let reflectionOmega = 0;
     if (evenOrder === 'move-zero-and-reflection' || (evenOrder === 'auto' && equalAsked)) {
-      const peak = peakPowerRatio(zpk, polys.E, polys.P);
+      const peak = responsePeak(zpk, polys.E, polys.P, characteristic);
       if (peak > 1 + TERMINATION_TOLERANCE && characteristic && characteristic.reflectionOmegasRadPerS.length > 0) {
         reflectionOmega = characteristic.reflectionOmegasRadPerS[0];
       } else if (peak > 1 + TERMINATION_TOLERANCE && !characteristic) {
@@ -184,7 +184,7 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   const m = E.evenPart();
   const od = E.oddPart();
   if (doubly) {
-    const peak = peakPowerRatio(zpk, E, P);
+    const peak = responsePeak(zpk, E, P, characteristic);
     if (!Number.isFinite(peak)) throw new UnrealizableError('UNREALIZABLE', 'prototype', prototype, 'the peak gain of the response could not be found');
     let t: Fraction;
     if (load === undefined) {
@@ -273,11 +273,18 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
     const f = firstFailure as Extract<ExtractionResult, { ok: false }>;
     const explicit = Array.isArray(options.tankOrder);
     const index = fromLoad ? `${f.branchIndex} from the load end` : String(f.branchIndex);
+    const all = orders.length === factorial(zeroCount);
+    const searched = explicit
+      ? ''
+      : zeroCount <= 1
+        ? 'no ladder of this structure has positive elements; '
+        : `none of the ${orders.length} tank orders tried${all ? ' (every order)' : ` (of ${factorial(zeroCount)})`} gives positive elements; ` +
+          `with the default order [${orders[0].join(', ')}], `;
     throw new UnrealizableError(
       'UNREALIZABLE',
       explicit ? 'tankOrder' : 'prototype',
       explicit ? options.tankOrder : prototype,
-      `branch ${index} would have ${f.element} = ${f.value}: ${f.reason}` + (explicit ? '; try another tankOrder or omit it' : ''),
+      `${searched}branch ${index} would have ${f.element} = ${f.value}: ${f.reason}` + (explicit ? '; try another tankOrder or omit it' : ''),
     );
   }
   const exactBranches = fromLoad ? result.branches.slice().reverse() : result.branches;
@@ -317,6 +324,19 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   const ladder = toFloatLadder(exactLadder, keptLoad);
   const dcTransfer = doubly ? fractionToNumber((realizedLoad as Fraction).div(Rs.add(realizedLoad as Fraction))) : 1;
   return { ladder, exactLadder, realizedPrototype: zpk, dcTransfer, tankOrder: usedOrder, diagnostics };
+}
+
+/**
+ * max |H(jw)|^2/|H(0)|^2. With the characteristic known, the maxima are its reflection zeros (|K| = 0
+ * there): 1 when one is at DC, else the value at any of them (the largest is taken); otherwise the
+ * stationary points are searched (peak-gain.ts).
+ */
+function responsePeak(zpk: PrototypeZpk, E: Poly, P: Poly, characteristic: LowpassCharacteristic | undefined): number {
+  if (!characteristic) return peakPowerRatio(zpk, E, P);
+  if (characteristic.originMultiplicity > 0) return 1;
+  let peak = 1;
+  for (const w of characteristic.reflectionOmegasRadPerS) peak = Math.max(peak, normalizedMagnitude(zpk, { re: 0, im: w }) ** 2);
+  return peak;
 }
 
 /** Relative pole move above which the re-derivation of E is reported: far above double rounding. */
@@ -384,6 +404,8 @@ function tankOrders(option: SynthesisOptions['tankOrder'], count: number): numbe
   }
   return autoTankOrders(count);
 }
+
+const factorial = (n: number): number => (n <= 1 ? 1 : n * factorial(n - 1));
 
 export function autoTankOrders(count: number): number[][] {
   const first: number[] = new Array(count);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { lowpassPrototype, type LowpassPrototypeParams } from '../../src/approximation/index';
 import { synthesizeLadder } from '../../src/ladder/darlington';
+import { designLadderPrototype } from '../../src/ladder/ladder-prototype';
 import { ladderTransferFunction } from '../../src/ladder/response';
 import { RationalFunction } from '../../src/algebra/rational-function';
 import { responseError } from './helpers';
@@ -17,9 +18,14 @@ const FAMILIES: { name: string; params: (n: number) => LowpassPrototypeParams; o
   { name: 'butterworth', params: (n) => ({ family: 'butterworth', order: n }), orders: range(1, 15) },
   { name: 'chebyshev 0.5 dB', params: (n) => ({ family: 'chebyshev', order: n, passbandRippleDb: 0.5 }), orders: range(1, 15) },
   { name: 'bessel (delay)', params: (n) => ({ family: 'bessel', order: n }), orders: range(1, 15) },
-  // Low attenuation at high order has no positive minimum-inductor ladder (see the error tests).
-  { name: 'inverse-chebyshev 60 dB', params: (n) => ({ family: 'inverse-chebyshev', order: n, stopbandAttenuationDb: 60 }), orders: range(1, 9) },
-  { name: 'elliptic 0.1 dB / 50 dB', params: (n) => ({ family: 'elliptic', order: n, passbandRippleDb: 0.1, stopbandAttenuationDb: 50 }), orders: range(2, 9) },
+  // Orders 11, 13 and 15 at 60 dB have no positive ladder of this structure in the tank orders searched
+  // (mpmath agrees: test/fixtures/mpmath/elliptic-ladders.json); see high-order.test.ts.
+  {
+    name: 'inverse-chebyshev 60 dB',
+    params: (n) => ({ family: 'inverse-chebyshev', order: n, stopbandAttenuationDb: 60 }),
+    orders: [...range(1, 10), 12, 14],
+  },
+  { name: 'elliptic 0.1 dB / 50 dB', params: (n) => ({ family: 'elliptic', order: n, passbandRippleDb: 0.1, stopbandAttenuationDb: 50 }), orders: range(2, 15) },
 ];
 
 function range(a: number, b: number): number[] {
@@ -30,7 +36,8 @@ describe('ladder response equals the prototype (doubly terminated, equal or comp
   for (const f of FAMILIES) {
     for (const n of f.orders) {
       it.each(['series-first', 'shunt-first'] as const)(`${f.name}, order ${n}, %s`, (form) => {
-        const s = synthesizeLadder(lowpassPrototype(f.params(n)), { form });
+        // designLadderPrototype passes the approximation's reflection zeros (the route the pipeline takes).
+        const s = designLadderPrototype({ ...f.params(n), form });
         expect(responseError(s)).toBeLessThan(tolerance(n));
       });
     }
