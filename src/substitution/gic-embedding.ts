@@ -21,18 +21,23 @@
  * R2 = R3 (or R3 = R4) = resistanceOhms, default the same 1/(omega0 C); R1 = k/C computed. Every converter
  * must have the same k: R1 is therefore marked computed (not free).
  */
-import { fractionToNumber } from '../algebra/rational';
+import { fractionToNumber, type Fraction } from '../algebra/rational';
+import type { RationalFunction } from '../algebra/rational-function';
 import { Circuit } from '../netlist/circuit';
 import { networkLadderTransferFunction } from '../transform/response';
 import type { NetworkLadder } from '../transform/network';
 import { addBuffers } from './buffers';
-import { chooseConverterGic, roundToSignificant } from './gic-choices';
+import { floatingInductorGroups, orderSeriesArmsForDcReference } from './embedding-order';
+import { chooseDcReference, outerIslands, type DcReferenceChoice } from './dc-reference';
+import { chooseConverterGic, ladderCharacteristicOmega, ladderResistanceLevel, roundToSignificant } from './gic-choices';
 import { addGic } from './gic-instance';
 import { ElementNames, GROUND, placeLadder } from './ladder-placement';
 import type { ResolvedOptions } from './options';
 import { addPassive } from './passive-parts';
-import type { Realization, RealizationDiagnostic, RealizedPart } from './realization';
+import type { DcPathReport, Realization, RealizationDiagnostic, RealizedPart } from './realization';
 import { UnrealizableError } from '../errors';
+
+const formatOhms = (r: Fraction): string => `${fractionToNumber(r).toPrecision(3)} ohm`;
 
 /** The suffix of a converter's inner node. */
 const INNER = '_gic';
@@ -40,7 +45,8 @@ const INNER = '_gic';
 export function realizeGicEmbeddingResolved(ladder: NetworkLadder, o: ResolvedOptions): Realization {
   const circuit = new Circuit().addVoltageSource('VIN', 'in', GROUND);
   const ports = addBuffers(circuit, o.buffers === 'auto' ? 'none' : o.buffers, o.opamp);
-  const placed = placeLadder(ladder, ports.ladderInput, ports.ladderOutput);
+  // Series arms ordered and shunt arms' inductors grounded so that the inductors reach ground (embedding-order.ts).
+  const placed = placeLadder(orderSeriesArmsForDcReference(ladder), ports.ladderInput, ports.ladderOutput, (e) => e.kind === 'L');
   const inductors = placed.elements.filter((p) => p.element.kind === 'L');
   const others = placed.elements.filter((p) => p.element.kind !== 'L');
   const diagnostics: RealizationDiagnostic[] = [];
@@ -64,11 +70,31 @@ export function realizeGicEmbeddingResolved(ladder: NetworkLadder, o: ResolvedOp
     if (e.kind === 'D') throw new UnrealizableError('UNREALIZABLE', 'options.method', 'gic-embedding', `ladder.${p.where}: an FDNR (${e.origin}) has no place in the embedding route (use method 'fdnr')`);
     parts.push(addPassive(circuit, names, p));
   }
+  let dcReference: DcReferenceChoice | undefined;
+  let h: RationalFunction | undefined;
   if (inductors.length > 0) {
     const logMean = inductors.reduce((acc, p) => acc + Math.log(fractionToNumber(p.element.value)), 0) / inductors.length;
     const c = o.capacitorF;
     const k = roundToSignificant(fractionToNumber(o.omega0) * Math.exp(logMean) * fractionToNumber(c)); // R(L) = L/k near 1/(omega0 C)
     const level = o.resistanceOhms ?? roundToSignificant(1 / (fractionToNumber(o.omega0) * fractionToNumber(c)));
+    h = networkLadderTransferFunction(ladder);
+    // Pieces of N with no DC reference (embedding-order.ts) get one (dc-reference.ts).
+    const floating = floatingInductorGroups(placed.elements, ports.ladderInput);
+    if (floating.length > 0 || outerIslands(placed.elements, ports.ladderInput, []).length > 0) {
+      dcReference = chooseDcReference(
+        placed.elements,
+        { input: ports.ladderInput, output: ports.ladderOutput },
+        floating,
+        h,
+        { k, capacitorF: c, omega0: ladderCharacteristicOmega(ladder), r0: fractionToNumber(ladderResistanceLevel(ladder)) },
+        o.dcPathErrorDb,
+        o.passbandEdgeHz,
+      );
+    }
+    const lossy = new Map<string, Fraction>();
+    for (const g of dcReference?.groups ?? []) {
+      if (g.remedy === 'lossy-converters') for (const n of g.nodes) lossy.set(n, g.resistorOhms);
+    }
     for (const p of inductors) {
       const name = names.make('R', p.element.origin);
       const r = p.element.value.div(k); // Eq. (2): L -> L/k
@@ -79,13 +105,38 @@ export function realizeGicEmbeddingResolved(ladder: NetworkLadder, o: ResolvedOp
     for (const t of terminals) {
       const gicName = names.make('X', t);
       const realises = inductors.filter((p) => p.a === t || p.b === t).map((p) => p.element.origin).join(',');
-      const got = addGic(circuit, gicName, t, design.parts, o.opamp, { realises, free: { ...free, 1: false } }, inner(t));
+      const got = addGic(circuit, gicName, t, design.parts, o.opamp, { realises, free: { ...free, 1: false } }, inner(t), lossy.get(t));
       parts.push(...got);
+    }
+    for (const g of dcReference?.groups ?? []) {
+      if (g.remedy === 'lossy-converters') continue;
+      const name = names.make('RDC', g.node!);
+      circuit.addResistor(name, g.remedy === 'dc-return' ? inner(g.node!) : g.node!, GROUND, g.resistorOhms);
+      parts.push({ name, kind: 'R', exactValue: g.resistorOhms, role: { kind: 'dc-path', realises: g.inductors.length > 0 ? g.inductors.join(',') : g.node!, free: true } });
     }
     diagnostics.push({
       code: 'GIC_EMBEDDING',
       message: `${inductors.length} inductor(s) embedded behind ${terminals.length} GIC converter(s), k = ${fractionToNumber(k)} s, omega0 = ${fractionToNumber(o.omega0)} rad/s`,
     });
+    if (dcReference) {
+      for (const g of dcReference.groups) {
+        if (g.remedy === 'shunt-resistor') {
+          diagnostics.push({ code: 'DC_REFERENCE', message: `node(s) ${g.nodes.join(', ')} touch only capacitors: resistor ${formatOhms(g.resistorOhms)} from ${g.node} to ground` });
+          continue;
+        }
+        const what =
+          g.remedy === 'dc-return'
+            ? `resistor ${formatOhms(g.resistorOhms)} from the inner node of ${g.node} to ground (a shunt inductor ${(fractionToNumber(k.mul(g.resistorOhms))).toPrecision(4)} H seen outside)`
+            : `resistor ${formatOhms(g.resistorOhms)} across each converter capacitor at ${g.nodes.filter((n) => terminals.includes(n)).join(', ')} (each inductor gets Q = ${(ladderCharacteristicOmega(ladder) * fractionToNumber(c.mul(g.resistorOhms))).toPrecision(3)} at ${(ladderCharacteristicOmega(ladder) / (2 * Math.PI)).toPrecision(4)} Hz)`;
+        diagnostics.push({ code: 'DC_REFERENCE', message: `inductors ${g.inductors.join(', ')} (nodes ${g.nodes.join(', ')}) have no DC path to ground behind their converters: ${what}` });
+      }
+      diagnostics.push({
+        code: 'DC_PATH_ERROR',
+        message: `DC references change the passband gain by at most ${dcReference.errorDb.toExponential(3)} dB (bound ${o.dcPathErrorDb} dB, ${dcReference.passbandHz[0].toPrecision(6)} to ${dcReference.passbandHz[1].toPrecision(6)} Hz)`,
+      });
+      if (dcReference.errorDb > o.dcPathErrorDb) diagnostics.push({ code: 'DC_PATH_ERROR_ABOVE_BOUND', message: 'no DC-reference level up to 1e9 meets the bound' });
+    }
   } else diagnostics.push({ code: 'NO_INDUCTORS', message: 'the ladder has no inductors; no GIC needed' });
-  return { method: 'gic-embedding', circuit, parts, reference: { ladder, transferFunction: networkLadderTransferFunction(ladder) }, opamp: o.opamp, diagnostics };
+  const dcPath: DcPathReport | undefined = dcReference && { errorDb: dcReference.errorDb, boundDb: dcReference.boundDb, passbandEdgeHz: dcReference.passbandHz[1], passbandLowHz: dcReference.passbandHz[0] };
+  return { method: 'gic-embedding', circuit, parts, reference: { ladder, transferFunction: h ?? networkLadderTransferFunction(ladder), ...(dcReference ? { withDcPath: dcReference.transferFunction } : {}) }, opamp: o.opamp, dcPath, diagnostics };
 }

@@ -14,6 +14,7 @@ import { Subcircuit, type Circuit } from '../netlist/circuit';
 import type { OpampModel } from '../netlist/opamp';
 import { DEFAULT_GIC_INPUTS } from '../converter/gic-nonideal';
 import type { GicPart, GicParts } from '../converter/configurations';
+import type { Fraction } from '../algebra/rational';
 import type { RealizedPart } from './realization';
 
 export type GicPositionNumber = 1 | 2 | 3 | 4 | 5;
@@ -26,6 +27,8 @@ const node = (k: number, converter: boolean): string => (k === 1 ? 'p' : k === 5
  * `converterNode`; `parts` from converter/configurations' designGic (z5 required for a one-port,
  * ignored for a converter).
  * Returns the instance's parts, labelled. `free[k]` says whether position k was a free choice.
+ * `capacitorShuntOhms` puts a resistor `RP<k>` across the capacitor of position k (a converter's DC
+ * reference, dc-reference.ts), labelled 'dc-path'.
  */
 export function addGic(
   circuit: Circuit,
@@ -35,6 +38,7 @@ export function addGic(
   opamp: OpampModel,
   label: { realises?: string; free: Partial<Record<GicPositionNumber, boolean>> },
   converterNode?: string,
+  capacitorShuntOhms?: Fraction,
 ): RealizedPart[] {
   const converter = converterNode !== undefined;
   const def = new Subcircuit(`GIC_${name}`, converter ? ['p', 'q'] : ['p']);
@@ -47,6 +51,11 @@ export function addGic(
     const element = `${part.kind}${k}`;
     if (part.kind === 'R') def.addResistor(element, a, b, part.value);
     else def.addCapacitor(element, a, b, part.value);
+    if (part.kind === 'C' && capacitorShuntOhms !== undefined) {
+      // A converter's DC reference (dc-reference.ts, Eq. (2)): R_p across its capacitor.
+      def.addResistor(`RP${k}`, a, b, capacitorShuntOhms);
+      out.push({ name: `${name}.RP${k}`, kind: 'R', exactValue: capacitorShuntOhms, role: { kind: 'dc-path', gic: name, position: k, realises: label.realises, free: true } });
+    }
     out.push({
       name: `${name}.${element}`,
       kind: part.kind,

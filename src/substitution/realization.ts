@@ -61,14 +61,19 @@ export interface RealizationDiagnostic {
   readonly message: string;
 }
 
-/** The FDNR route's DC-path resistors and the passband error they cause (float, see dc-path.ts). */
+/**
+ * The DC-path resistors (FDNR route, dc-path.ts) or DC references (embedding route, dc-reference.ts) and
+ * the passband error they cause (float).
+ */
 export interface DcPathReport {
   /** The largest |gain change| in dB over the checked passband, with and without the DC-path resistors. */
   readonly errorDb: number;
   /** The bound it was chosen to meet (options.dcPathErrorDb). */
   readonly boundDb: number;
-  /** The passband checked: 0 .. passbandEdgeHz. */
+  /** The passband checked: passbandLowHz (default 0) .. passbandEdgeHz. */
   readonly passbandEdgeHz: number;
+  /** The lower end of the band checked, Hz (embedding route: a bandpass's lower -3.01 dB point). */
+  readonly passbandLowHz?: number;
 }
 
 export interface Realization {
@@ -76,11 +81,15 @@ export interface Realization {
   /** VIN drives 'in'; the output node is 'out'. */
   readonly circuit: Circuit;
   readonly parts: readonly RealizedPart[];
-  /** The ladder realised (as given) and its exact V(out)/V(in). */
-  readonly reference: { readonly ladder: NetworkLadder; readonly transferFunction: RationalFunction };
+  /**
+   * The ladder realised (as given) and its exact V(out)/V(in); for the embedding route with DC references
+   * also the exact V(out)/V(in) of the ladder with their passive equivalents in (dc-reference.ts), which
+   * the ideal circuit equals exactly and which is within `dcPath.boundDb` of `transferFunction`.
+   */
+  readonly reference: { readonly ladder: NetworkLadder; readonly transferFunction: RationalFunction; readonly withDcPath?: RationalFunction };
   /** The op-amp model every op-amp of `circuit` uses. */
   readonly opamp: OpampModel;
-  /** FDNR route only. */
+  /** FDNR route; embedding route when some inductors needed a DC reference. */
   readonly dcPath?: DcPathReport;
   readonly diagnostics: readonly RealizationDiagnostic[];
 }
@@ -115,8 +124,11 @@ export interface RealizeOptions {
   readonly opamp?: OpampModel;
   /** Default 'auto'. */
   readonly buffers?: BufferChoice;
-  /** FDNR route: the largest passband error the DC-path resistors may cause, dB; default 0.01. */
+  /** FDNR route and the embedding route's DC references: the largest passband error they may cause, dB; default 0.01. */
   readonly dcPathErrorDb?: number;
-  /** FDNR route: the passband edge for that check, Hz; default the ladder's -3.01 dB frequency. */
+  /**
+   * The passband edge (a lowpass) for that check, Hz; default the ladder's -3.01 dB frequency (FDNR) or
+   * the band where the ladder is within 3.01 dB of its peak (embedding).
+   */
   readonly passbandEdgeHz?: number;
 }
