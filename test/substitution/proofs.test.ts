@@ -17,6 +17,8 @@ import { cAbs, cDiv } from '../../src/algebra/complex';
 import { ladderCharacteristicOmega, realizeFdnr, realizeLadder, type RealizationMethod } from '../../src/substitution/index';
 import { roundToSignificant } from '../../src/substitution/gic-choices';
 import { element, ladderElements, type NetworkLadder } from '../../src/transform/index';
+import { checkTopology } from '../../src/netlist/topology';
+import { circuitStability } from '../../src/spec/stability';
 import { circuitTransferFunction, expectExactRealization, expectPartsMatchCircuit } from './helpers';
 import { FAMILIES, MIN_ORDER, transformedLadder, type Family, type ResponseType } from './ladders';
 
@@ -118,5 +120,33 @@ describe('GIC embedding: converters only where inductors meet other elements', (
     const converters = [...new Set(r.parts.filter((p) => p.role.kind === 'gic').map((p) => p.role.gic))].sort();
     expect(converters).toEqual(['X_n1', 'X_out']);
     expect(r.parts.find((p) => p.role.gic === 'X_n1')!.role.realises).toBe('L4,L1');
+  });
+});
+
+describe('GIC embedding: every inductor has a DC reference behind its converters', () => {
+  it('bandpass, series-first Butterworth: the series arms put their inductor at the tank, no DC reference needed, exact and stable', () => {
+    // Regression: with the arm order L1 then C1, L1 alone sat between the first ladder node and the L1-C1
+    // junction, both behind converters: their inner nodes had no DC path (an MNA root at s = 0).
+    const r = route('gic-embedding', 'bandpass', 'butterworth', 3);
+    expectExactRealization(r);
+    expect(r.reference.withDcPath).toBeUndefined();
+    expect(checkTopology(r.circuit).diagnostics.some((d) => d.code === 'NO_DC_PATH')).toBe(false);
+    const converters = new Set(r.parts.filter((p) => p.role.kind === 'gic').map((p) => p.role.gic));
+    expect(converters.size).toBe(3);
+    const st = circuitStability(r.circuit);
+    expect(st.stable && st.originRoots === 0).toBe(true);
+  });
+
+  it('bandstop and elliptic bandpass: DC references make the circuit stable with ideal and single-pole op-amps', () => {
+    for (const [type, family] of [['bandstop', 'butterworth'], ['bandpass', 'elliptic']] as const) {
+      for (const opamp of [undefined, { model: 'single-pole' as const, gainBandwidthHz: 10e6, openLoopGainDb: 100 }]) {
+        const r = realizeLadder(transformedLadder(family, 4, type), { method: 'gic-embedding', capacitorF: CAP, opamp });
+        if (!opamp) expectExactRealization(r);
+        expect(r.diagnostics.some((d) => d.code === 'DC_REFERENCE'), `${type} ${family}`).toBe(true);
+        expect(checkTopology(r.circuit).diagnostics.some((d) => d.code === 'NO_DC_PATH'), `${type} ${family}`).toBe(false);
+        const st = circuitStability(r.circuit);
+        expect(st.stable, `${type} ${family} ${opamp?.model ?? 'ideal'}`).toBe(true);
+      }
+    }
   });
 });
