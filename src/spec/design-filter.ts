@@ -256,7 +256,10 @@ function noteEvaluation(spec: DesignSpec, e: ResponseEvaluation, note: Note): vo
     }
   }
   const g = e.gainBandwidth;
-  if (!g.meets) {
+  if (!g.meets && !Number.isFinite(g.chosenHz)) {
+    // A model without a gain-bandwidth (finite-gain): its open-loop gain alone misses the bound.
+    note('evaluation', 'warning', 'OPAMP_GAIN_TOO_LOW', `the op-amp model's finite open-loop gain costs ${pe.opamp.toFixed(3)} dB of passband error, above the ${g.forPassbandErrorDb} dB allowed`);
+  } else if (!g.meets) {
     const need = Number.isFinite(g.requiredHz) ? formatQuantity(g.requiredHz, 'Hz') : 'more than any GBW searched';
     note('evaluation', 'warning', 'GBW_TOO_LOW', `the op-amp's gain-bandwidth ${formatQuantity(g.chosenHz, 'Hz')} is below the ${need} needed for ${g.forPassbandErrorDb} dB passband error`);
   } else if (Number.isFinite(g.requiredHz)) {
