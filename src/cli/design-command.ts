@@ -10,7 +10,7 @@ import { cautionFor } from './caution';
 import { readJsonFile } from './spec-file';
 import { designSummary } from './summary';
 import type { CliIo } from './io';
-import { productionOutputs, type ProductionOutputs } from './production-outputs';
+import { productionOutputs, type ProductionOutputs } from '../spec/production-outputs';
 
 /** A file stem from the design name: letters, digits, '-' and '_' only, never empty. */
 export function fileStem(name: string): string {

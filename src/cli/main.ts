@@ -10,6 +10,7 @@ import { runPrototypeCommand } from './prototype-command';
 import type { CliIo } from './io';
 import { runDesignCommand, runHeaderCommand, runNetlistCommand } from './design-command';
 import { createProgress } from './progress';
+import { runCheckCommand } from './check-command';
 
 export const EXIT_OK = 0;
 export const EXIT_CHECK_FAILED = 1;
@@ -69,6 +70,18 @@ export function buildProgram(io: CliIo): Command {
     .addHelpText('after', '\nExample:\n  gicladder netlist filter.json -o filter.cir && ngspice -b filter.cir\n')
     .action((specPath: string, opts: { output?: string }) => {
       runNetlistCommand(specPath, opts, io);
+    });
+
+  program
+    .command('check')
+    .description('production-test verdicts for measured boards; exit 1 if any board fails')
+    .argument('<spec.json>', 'the design file (with production.enabled)')
+    .argument('<measured.csv>', 'CSV with a header: board, frequency_hz, gain_db[, phase_deg]')
+    .option('--json', 'print every verdict as JSON')
+    .addHelpText('after', '\nExample (on the test station):\n  gicladder check filter.json station3.csv || echo "some boards failed"\n')
+    .action(async (specPath: string, csvPath: string, opts: { json?: boolean }) => {
+      const code = await runCheckCommand(specPath, csvPath, opts, io);
+      if (code !== EXIT_OK) throw new ExitRequest(code);
     });
 
   program

@@ -200,11 +200,17 @@ const evaluation = z
 // ---------------------------------------------------------------- production, trim, export
 const production = z
   .strictObject({
+    enabled: z.boolean().default(false).describe('Whether the production test is planned (Monte Carlo boards, test points, limits, yields and risks; it goes into the report and the C header). Default false.'),
     testPoints: z
       .union([z.literal('auto'), z.array(quantity('Hz')).min(1).max(1000)])
       .default('auto')
       .describe("Test frequencies in Hz, or 'auto' (band edges, passband centre and stopband edges). Default 'auto'."),
-    coverageProbability: z.number().gt(0).lt(1).default(0.95).describe('The coverage probability of the test limits (JCGM 100). Default 0.95.'),
+    limits: z
+      .enum(['statistical', 'mask'])
+      .default('statistical')
+      .describe("Where the tolerance at each test point comes from: 'statistical' (the default; the central limitCoverage share of the Monte Carlo boards, so the test catches boards that are not like the design) or 'mask' (the spec mask itself: passband within the ripple, stopband below the attenuation)."),
+    limitCoverage: z.number().gt(0).lt(1).default(0.9973).describe('statistical limits only: the share of Monte Carlo boards the tolerance interval covers. Default 0.9973 (+-3 sigma of a normal process).'),
+    coverageProbability: z.number().gt(0).lt(1).default(0.95).describe('The coverage probability of the expanded measurement uncertainty U = k u (JCGM 100, 6.2); k from the normal distribution (0.95 gives k = 1.96). Default 0.95.'),
     measurementUncertaintyDb: z.number().min(0).finite().default(0.05).describe('The standard uncertainty of a gain measurement in dB. Default 0.05 dB.'),
     decisionRule: z
       .enum(DECISION_RULES)
