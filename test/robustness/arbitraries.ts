@@ -210,6 +210,8 @@ export interface ErrorTally {
   accepted: number;
   /** Typed errors by `ClassName/CODE`. */
   errors: Map<string, number>;
+  /** Called with each typed error (for exploring a generator; unused by the tests). */
+  onError?: (error: GicladderError, input: unknown) => void;
 }
 
 export function newTally(): ErrorTally {
@@ -232,6 +234,7 @@ export function expectTyped<T>(tally: ErrorTally, input: unknown, f: () => T): T
     }
     const key = `${e.constructor.name}/${e.code}`;
     tally.errors.set(key, (tally.errors.get(key) ?? 0) + 1);
+    tally.onError?.(e, input);
     return undefined;
   }
 }
