@@ -33,6 +33,7 @@ import { InvalidInputError, UnrealizableError, requireFinite, requireOneOf } fro
 import { extractLadder, type ExtractionResult, type Immittance } from './extraction';
 import { moveReflectionZeros, moveTransmissionZeroToInfinity } from './even-order-modification';
 import { factorFromCharacteristic } from './characteristic-factorization';
+import { inferCharacteristic } from './inferred-characteristic';
 import type { LowpassCharacteristic } from '../approximation/index';
 import { normalizedMagnitude, peakPowerRatio } from './peak-gain';
 import { prototypePolynomials, type PrototypeZpk } from './prototype-polynomials';
@@ -128,6 +129,8 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
   let zpk: PrototypeZpk = prototype;
   let polys = prototypePolynomials(zpk);
   const n = polys.E.degree;
+  // Without the approximation's zeros, where they are needed the reflection zeros on the axis are found
+  // as the maxima of |H| (simple roots; inferred-characteristic.ts), checked against the poles before use.
   let characteristic = validCharacteristic(options.characteristic, n);
   if (polys.P.degree > n) {
     throw new UnrealizableError('UNREALIZABLE', 'prototype.zeros', prototype.zeros.length, 'more zeros than poles: not a lowpass response');
@@ -145,12 +148,14 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
     let reflectionOmega = 0;
     if (evenOrder === 'move-zero-and-reflection' || (evenOrder === 'auto' && equalAsked)) {
       const peak = responsePeak(zpk, polys.E, polys.P, characteristic);
-      if (peak > 1 + TERMINATION_TOLERANCE && characteristic && characteristic.reflectionOmegasRadPerS.length > 0) {
-        reflectionOmega = characteristic.reflectionOmegasRadPerS[0];
-      } else if (peak > 1 + TERMINATION_TOLERANCE && !characteristic) {
-        const dc = polys.E.coefficient(0).div(polys.P.coefficient(0));
-        const f = factorFeldtkeller(polys.E, polys.P, dc.mul(dc).mul(fractionFromDouble(1 / peak)), 'minimum-phase');
-        if (f && f.jAxisOmegaSquared.length > 0) reflectionOmega = Math.sqrt(fractionToNumber(f.jAxisOmegaSquared[0]));
+      if (peak > 1 + TERMINATION_TOLERANCE) {
+        characteristic ??= inferCharacteristic(zpk, polys.E, polys.P, peak);
+        if (characteristic && characteristic.reflectionOmegasRadPerS.length > 0) reflectionOmega = characteristic.reflectionOmegasRadPerS[0];
+        else if (!characteristic) {
+          const dc = polys.E.coefficient(0).div(polys.P.coefficient(0));
+          const f = factorFeldtkeller(polys.E, polys.P, dc.mul(dc).mul(fractionFromDouble(1 / peak)), 'minimum-phase');
+          if (f && f.jAxisOmegaSquared.length > 0) reflectionOmega = Math.sqrt(fractionToNumber(f.jAxisOmegaSquared[0]));
+        }
       }
       if (reflectionOmega === 0 && evenOrder === 'move-zero-and-reflection') {
         diagnostics.push({ code: 'NO_REFLECTION_ZERO_TO_MOVE', message: 'the DC gain is already the passband maximum: only the transmission zero was moved' });
@@ -208,6 +213,7 @@ export function synthesizeLadder(prototype: PrototypeZpk, options: SynthesisOpti
     const sigma2 = t.mul(dcRatio).mul(dcRatio);
     // Lossless at the passband maxima (t * peak = 1): the reflection zeros are on the j-axis.
     const lossless = requestedLoad === undefined || (t.equals(Q1) && peak <= 1 + TERMINATION_TOLERANCE);
+    if (lossless) characteristic ??= inferCharacteristic(zpk, E, P, peak);
     const analytic = characteristic && lossless ? factorFromCharacteristic(P, sigma2, characteristic, zpk.poles) : null;
     let F: Poly;
     if (analytic) {

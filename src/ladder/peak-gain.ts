@@ -31,10 +31,26 @@ export function normalizedMagnitude(zpk: PrototypeZpk, s: Complex): number {
 }
 
 /** max over w of |H(jw)|^2 / |H(0)|^2 (at least 1: w = 0 counts). */
-export function peakPowerRatio(zpk: PrototypeZpk, E: Poly, P: Poly): number {
+/**
+ * N(x) = A'(x) B(x) - A(x) B'(x), x = w^2, A = |P(jw)|^2, B = |E(jw)|^2: its positive roots are the
+ * stationary points of |H|^2 (exact; the maxima are simple roots, so well conditioned, unlike the double
+ * roots of the Feldtkeller polynomial there).
+ */
+export function stationaryPolynomial(E: Poly, P: Poly, magnitudes = false): Poly {
+  if (magnitudes) {
+    // Every product with its magnitude, no cancellation: a bound on the terms each coefficient sums.
+    const pos = (p: Poly): Poly => Poly.fromCoefficients(p.coefficients.map((c) => c.abs()));
+    const A = evenToSquareVariable(pos(P).mul(pos(P)));
+    const B = evenToSquareVariable(pos(E).mul(pos(E)));
+    return A.derivative().mul(B).add(A.mul(B.derivative()));
+  }
   const A = evenToSquareVariable(P.mul(P.negateVariable())).negateVariable(); // |P(jw)|^2 in x = w^2
   const B = evenToSquareVariable(E.mul(E.negateVariable())).negateVariable();
-  const N = A.derivative().mul(B).sub(A.mul(B.derivative()));
+  return A.derivative().mul(B).sub(A.mul(B.derivative()));
+}
+
+export function peakPowerRatio(zpk: PrototypeZpk, E: Poly, P: Poly): number {
+  const N = stationaryPolynomial(E, P);
   let peak = 1;
   if (N.degree < 1) return peak;
   // Strip roots at x = 0 (a flat DC response), which are not interior maxima.

@@ -10,9 +10,13 @@
 import { Fraction } from '../algebra/rational';
 import type { Poly } from '../algebra/poly';
 
-/** Fractional bits of the fixed-point numbers: 2^-160 ~ 7e-49, far below anything an element value shows. */
-export const FIXED_POINT_BITS = 160;
-/** Newton steps from a float start (~2^-40 after clustering effects): 40 -> 80 -> 160 bits, plus margin. */
+/**
+ * Fractional bits of the fixed-point numbers: 2^-256 ~ 9e-78 absolute. The root error is this divided by
+ * |p'(root)|, which at the clustered high-Q poles of order-15 elliptic responses is ~1e-16: 2^-160 left
+ * the poles good to ~1e-30 only and the extraction reported remainders of 1e-21 (measured).
+ */
+export const FIXED_POINT_BITS = 256;
+/** Newton steps from a float start (~2^-40 after clustering effects): 40 -> 80 -> 160 -> 320 bits, plus margin. */
 const NEWTON_STEPS = 6;
 
 const P = BigInt(FIXED_POINT_BITS);
@@ -23,7 +27,7 @@ export function fractionToFixed(f: Fraction): bigint {
   return (f.s * f.n * ONE) / f.d;
 }
 
-/** A double in fixed point, exactly when it has no bits below 2^-160 (every double of moderate size). */
+/** A double in fixed point, exactly when it has no bits below 2^-FIXED_POINT_BITS (every double of moderate size). */
 function doubleToFixed(x: number): bigint {
   if (x === 0) return 0n;
   const e = Math.floor(Math.log2(Math.abs(x)));
