@@ -10,7 +10,7 @@
  *   G(s) = sigma^2 P(s)P(-s) + F(s)F(-s) = E(s)E(-s)          (the Feldtkeller equation, Belevitch 1968, ch. 9)
  *
  * in fixed point (precise-roots.ts; simple roots, Newton from the float poles). E, F and P then satisfy
- * the Feldtkeller equation to the polishing precision (~1e-45), so the extraction realises exactly the
+ * the Feldtkeller equation to the polishing precision (2^-256 divided by |G'| at each pole: ~1e-60 even at the clustered poles of order 15), so the extraction realises exactly the
  * characteristic function whose zeros are the analytic ones rounded to doubles. This is the route of
  * H. J. Orchard and G. C. Temes, "Filter design using transformed variables", IEEE Trans. Circuit
  * Theory CT-15 (1968) 385-408: the element values are well conditioned in the zeros of F and P, badly in

@@ -123,7 +123,7 @@ function cMulFixed(a: FixedComplex, b: FixedComplex): FixedComplex {
  * a / b = a conj(b) / |b|^2 with the products kept at full width (2 * FIXED_POINT_BITS fractional bits)
  * and one rounding at the end. Truncating a conj(b) and |b|^2 to fixed point first lost every digit
  * when |b| is small: Newton steps at the clustered high-Q poles of order-15 elliptic responses have
- * |p'| ~ 1e-16 and |p| ~ 1e-33, whose product is below 2^-160 (measured: the polish stalled at 1e-17).
+ * |p'| ~ 1e-16 and |p| ~ 1e-33, whose product is below the 2^-160 then used (measured: the polish stalled at 1e-17).
  */
 function cDivFixed(a: FixedComplex, b: FixedComplex): FixedComplex | null {
   const den = b.re * b.re + b.im * b.im;

@@ -13,9 +13,12 @@
  *   roots some 1e-8 apart; the pair is replaced by its mean, which the split leaves correct to O(eps),
  *   and the mean is polished as the simple root of D'(y) it is. F gets (s^2 + w^2) once;
  * - every other root gives s = +-sqrt(y); F takes the left-half-plane one (minimum phase) or the
- *   right-half-plane one (maximum phase), polished by Newton on D(s) in 160-bit fixed point.
+ *   right-half-plane one (maximum phase), polished by Newton on D(s) in 256-bit fixed point.
  * Without the pairing and polishing, element values of order-11 Chebyshev ladders came out wrong in
- * the 8th digit (measured; see test/ladder/accuracy.test.ts).
+ * the 8th digit (measured). The pairing of split double roots stays fragile above order 11; the
+ * synthesis therefore takes this path only where no j-axis reflection zeros are known or inferred
+ * (characteristic-factorization.ts, inferred-characteristic.ts): unequal terminations, whose reflection
+ * zeros are simple and off the axis, and Bessel.
  *
  * Returns null when D changes sign on the j-axis (a simple root there): the response then exceeds the
  * available power gain and no passive ladder realises it.
