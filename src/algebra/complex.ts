@@ -71,3 +71,33 @@ export const cDb = (a: Complex): number => 20 * Math.log10(cAbs(a));
 
 /** True when both parts are finite. */
 export const cIsFinite = (a: Complex): boolean => Number.isFinite(a.re) && Number.isFinite(a.im);
+
+/**
+ * Smith's division on separate parts, returning [re, im]: for hot loops that keep real and imaginary
+ * parts in typed arrays (the AC engine, sensitivities, root polishing). Same algorithm as {@link cDiv}.
+ */
+export function divideParts(ar: number, ai: number, br: number, bi: number): [number, number] {
+  if (Math.abs(br) >= Math.abs(bi)) {
+    const t = bi / br;
+    const d = br + bi * t;
+    return [(ar + ai * t) / d, (ai - ar * t) / d];
+  }
+  const t = br / bi;
+  const d = br * t + bi;
+  return [(ar * t + ai) / d, (ai * t - ar) / d];
+}
+
+/** (j w)^k as [re, im], exactly: the power of j by k mod 4, so no rounding enters the phase. */
+export function jwPower(w: number, k: number): [number, number] {
+  const m = w ** k;
+  switch (k & 3) {
+    case 0:
+      return [m, 0];
+    case 1:
+      return [0, m];
+    case 2:
+      return [-m, 0];
+    default:
+      return [0, -m];
+  }
+}

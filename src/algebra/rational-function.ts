@@ -3,7 +3,7 @@
  * the zero function is 0/1), so the representation is canonical and {@link RationalFunction.equals} is
  * structural equality of coefficient lists.
  */
-import { Poly } from './poly';
+import { Poly, hornerComplex as horner } from './poly';
 import { Fraction, Q0, Q1, fractionToNumber, toFraction, type RationalLike } from './rational';
 import { cDiv, cAbs, cArg, type Complex } from './complex';
 import { ArithmeticError } from '../errors';
@@ -249,16 +249,6 @@ export function evaluateRatioComplex(num: readonly number[], den: readonly numbe
   return ratio;
 }
 
-function horner(asc: readonly number[], s: Complex): Complex {
-  let re = 0;
-  let im = 0;
-  for (let i = asc.length - 1; i >= 0; i--) {
-    const nr = re * s.re - im * s.im + asc[i];
-    im = re * s.im + im * s.re;
-    re = nr;
-  }
-  return { re, im };
-}
 
 /** sum a_i * u^(n - i) for u = 1/s: Horner over the coefficients in ascending order. */
 function hornerReversed(asc: readonly number[], u: Complex): Complex {

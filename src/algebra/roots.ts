@@ -9,7 +9,7 @@
  * A kernel: it never throws. Leading zeros are ignored; an empty or constant input has no roots; NaN
  * coefficients give NaN roots.
  */
-import type { Complex } from './complex';
+import { divideParts as divide, type Complex } from './complex';
 import { Poly } from './poly';
 import { evaluateAccurately } from './compensated-horner';
 
@@ -174,18 +174,6 @@ export function polishRoot(a: readonly number[], start: Complex): Complex {
   return best;
 }
 
-/** Smith's division, returning a tuple to stay allocation-light inside the iteration. */
-function divide(ar: number, ai: number, br: number, bi: number): [number, number] {
-  if (Math.abs(br) >= Math.abs(bi)) {
-    if (br === 0 && bi === 0) return [ar / 0, ai / 0];
-    const r = bi / br;
-    const d = br + bi * r;
-    return [(ar + ai * r) / d, (ai - ar * r) / d];
-  }
-  const r = br / bi;
-  const d = br * r + bi;
-  return [(ar * r + ai) / d, (ai * r - ar) / d];
-}
 
 /**
  * Makes a root set of a real polynomial exactly conjugate-symmetric: roots whose imaginary part is

@@ -12,7 +12,7 @@
  * with the same factors, and tau = -Im(H'/H) for H = c.x (for a ratio H = c.x / r.x,
  * H'/H = (c.x')/(c.x) - (r.x')/(r.x)).
  */
-import { fractionToNumber } from '../algebra/index';
+import { fractionToNumber, jwPower } from '../algebra/index';
 import { InvalidInputError, requireFinite } from '../errors';
 import { assertTopology, SingularCircuitError, validateOpampModel, type Circuit, type OpampModel, type TopologyDiagnostic } from '../netlist/index';
 import { resolveImpedance, resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from './mna-system';
@@ -519,20 +519,6 @@ function cumulative(xs: readonly number[]): number[] {
   return xs.map((x) => (acc += x));
 }
 
-/** (j w)^k as [re, im]. */
-function jwPower(w: number, k: number): [number, number] {
-  const m = w ** k;
-  switch (k & 3) {
-    case 0:
-      return [m, 0];
-    case 1:
-      return [0, m];
-    case 2:
-      return [-m, 0];
-    default:
-      return [0, -m];
-  }
-}
 
 /** sum w_k x[idx_k] into out[at], out[at + 1] (no allocation). */
 function combine(idx: Int32Array, w: Float64Array, xr: ArrayLike<number>, xi: ArrayLike<number>, out: Float64Array, at: number): void {

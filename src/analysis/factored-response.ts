@@ -11,7 +11,7 @@
  * poles in conjugate pairs (real poles paired in sorted order), the pairs taken from the highest Q
  * down, each with the nearest remaining zero group (the rule of scipy.signal.zpk2sos).
  */
-import { Fraction, fractionToNumber, polynomialRoots, type Complex, type RationalFunction } from '../algebra/index';
+import { Fraction, fractionToNumber, polynomialRoots, divideParts as cdiv, type Complex, type RationalFunction } from '../algebra/index';
 
 /** num(s)/den(s) = (n2 s^2 + n1 s + n0) / (d2 s^2 + d1 s + d0), real coefficients. */
 export interface AnalogSection {
@@ -353,13 +353,3 @@ function log2Abs(f: Fraction): number {
   return Math.log2(Number(f.n >> BigInt(sn))) + sn - Math.log2(Number(f.d >> BigInt(sd))) - sd;
 }
 
-function cdiv(ar: number, ai: number, br: number, bi: number): [number, number] {
-  if (Math.abs(br) >= Math.abs(bi)) {
-    const t = bi / br;
-    const d = br + bi * t;
-    return [(ar + ai * t) / d, (ai - ar * t) / d];
-  }
-  const t = br / bi;
-  const d = br * t + bi;
-  return [(ar * t + ai) / d, (ai * t - ar) / d];
-}

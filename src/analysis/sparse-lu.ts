@@ -9,6 +9,7 @@
  * matrix given (the system at several frequencies), take the one of least (r - 1)(c - 1). Kernels never
  * throw: a zero pivot at run time gives NaN/Infinity, which the caller detects.
  */
+import { divideParts as cdiv } from '../algebra/complex';
 
 /** Threshold u of threshold pivoting; 0.1 is the usual compromise between sparsity and stability (Duff et al., section 7.8). */
 export const PIVOT_THRESHOLD = 0.1;
@@ -300,13 +301,3 @@ export function solveSparseLu(
   }
 }
 
-function cdiv(ar: number, ai: number, br: number, bi: number): [number, number] {
-  if (Math.abs(br) >= Math.abs(bi)) {
-    const t = bi / br;
-    const d = br + bi * t;
-    return [(ar + ai * t) / d, (ai - ar * t) / d];
-  }
-  const t = br / bi;
-  const d = br * t + bi;
-  return [(ar * t + ai) / d, (ai * t - ar) / d];
-}

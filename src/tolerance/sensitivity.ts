@@ -16,7 +16,7 @@
  *
  * Float boundary: component values become doubles here (fractionToNumber, correctly rounded).
  */
-import { fractionToNumber } from '../algebra/index';
+import { fractionToNumber, jwPower } from '../algebra/index';
 import { InvalidInputError, requireFinite } from '../errors';
 import { resolveTransfer, type Combination, type MnaProblem, type TransferSpec } from '../analysis/index';
 import { assertTopology, type Circuit } from '../netlist/index';
@@ -111,20 +111,6 @@ export function validateFrequencies(frequenciesHz: ArrayLike<number>, path = 'fr
   return f;
 }
 
-/** (j w)^k as [re, im]. */
-function jwPower(w: number, k: number): [number, number] {
-  const m = w ** k;
-  switch (k & 3) {
-    case 0:
-      return [m, 0];
-    case 1:
-      return [0, m];
-    case 2:
-      return [-m, 0];
-    default:
-      return [0, -m];
-  }
-}
 
 function combination(c: Combination, n: number): { re: Float64Array; im: Float64Array } {
   const re = new Float64Array(n);

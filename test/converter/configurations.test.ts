@@ -26,18 +26,7 @@ import { gicImpedance } from '../../src/converter/gic';
 import { Fraction, toFraction } from '../../src/algebra/rational';
 import { InvalidInputError } from '../../src/errors';
 import { positiveRational } from './arbitraries';
-
-function expectInvalid(fn: () => unknown, code: string, path?: string): void {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InvalidInputError);
-    expect((e as InvalidInputError).code).toBe(code);
-    if (path !== undefined) expect((e as InvalidInputError).path).toBe(path);
-    return;
-  }
-  throw new Error('expected a throw');
-}
+import { expectInvalid } from '../helpers/expect-error';
 
 const F = (x: string | number) => toFraction(x);
 const part = (kind: 'R' | 'C', v: string | number) => ({ kind, value: toFraction(v) });

@@ -16,18 +16,7 @@ import { RationalFunction } from '../../src/algebra/rational-function';
 import { Fraction } from '../../src/algebra/rational';
 import { ArithmeticError, InvalidInputError } from '../../src/errors';
 import { evaluateNetwork, network, networkImpedance, positiveRational } from './arbitraries';
-
-function expectInvalid(fn: () => unknown, code: string, path?: string): void {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InvalidInputError);
-    expect((e as InvalidInputError).code).toBe(code);
-    if (path !== undefined) expect((e as InvalidInputError).path).toBe(path);
-    return;
-  }
-  throw new Error('expected a throw');
-}
+import { expectInvalid } from '../helpers/expect-error';
 
 const rf = (num: (number | string)[], den: (number | string)[]) => RationalFunction.fromCoefficients(num, den);
 

@@ -15,6 +15,7 @@ import {
 } from '../../src/units/eseries';
 import { InvalidInputError } from '../../src/errors';
 import { Fraction, fractionFromDouble } from '../../src/algebra/rational';
+import { expectInvalid } from '../helpers/expect-error';
 
 const SIZES: Record<ESeriesName, number> = { E3: 3, E6: 6, E12: 12, E24: 24, E48: 48, E96: 96, E192: 192 };
 
@@ -41,18 +42,6 @@ function isqrt(n: bigint): bigint {
     if (y >= x) return x;
     x = y;
   }
-}
-
-function expectInvalid(fn: () => unknown, code: string, path: string): void {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InvalidInputError);
-    expect((e as InvalidInputError).code).toBe(code);
-    expect((e as InvalidInputError).path).toBe(path);
-    return;
-  }
-  throw new Error('expected a throw');
 }
 
 describe('E-series tables (IEC 60063:2015 Tables 1 and 2, from memory)', () => {

@@ -1,18 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { formatQuantity } from '../../src/units/format';
 import { InvalidInputError } from '../../src/errors';
-
-function expectCode(fn: () => unknown, code: string, path: string): void {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InvalidInputError);
-    expect((e as InvalidInputError).code).toBe(code);
-    expect((e as InvalidInputError).path).toBe(path);
-    return;
-  }
-  throw new Error('expected a throw');
-}
+import { expectInvalid as expectCode } from '../helpers/expect-error';
 
 describe('formatQuantity', () => {
   // The documented form '<mantissa> <prefix><unit>' (SI Brochure 9th ed. 5.4.3 for the space).

@@ -4,20 +4,9 @@ import { parseQuantity, parseQuantityExact } from '../../src/units/parse';
 import { formatQuantity } from '../../src/units/format';
 import { InvalidInputError } from '../../src/errors';
 import { fractionToNumber } from '../../src/algebra/rational';
+import { expectInvalid } from '../helpers/expect-error';
 
 /** Asserts that fn throws an InvalidInputError with this code (never the message text). */
-function expectInvalid(fn: () => unknown, code: string, path?: string): void {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InvalidInputError);
-    expect((e as InvalidInputError).code).toBe(code);
-    if (path !== undefined) expect((e as InvalidInputError).path).toBe(path);
-    return;
-  }
-  throw new Error('expected a throw');
-}
-
 describe('parseQuantity: SI prefixes', () => {
   // Expected values: the decimal as written (SI prefix definitions, BIPM SI Brochure 9th ed. Table 7),
   // compared to the double JavaScript's own decimal parser gives for the same decimal.
