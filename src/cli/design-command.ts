@@ -4,7 +4,7 @@
  * atomically (temporary file and rename), and the header only when its content changed.
  */
 import { join } from 'node:path';
-import { designFilter, designPlots, toCHeader, toJsonReport, toSpiceNetlist, type FilterDesign } from '../spec/index';
+import { designFilter, designPlots, toCHeader, toJsonReport, toResponseCsv, toSpiceNetlist, type FilterDesign } from '../spec/index';
 import { writeAtomic, writeIfChanged } from './atomic-write';
 import { cautionFor } from './caution';
 import { readJsonFile } from './spec-file';
@@ -35,7 +35,9 @@ export function renderDesignOutputs(spec: unknown, onProgress?: (done: number, t
     'report.json': toJsonReport(design, production?.report ?? {}),
     [`${stem}.h`]: toCHeader(design, production?.headerExtras ?? {}),
     [`${stem}.cir`]: toSpiceNetlist(design),
+    [`${stem}-response.csv`]: toResponseCsv(design),
   };
+  if (production) files[`${stem}-montecarlo.csv`] = production.monteCarloCsv;
   for (const [kind, svg] of Object.entries(plots)) files[`${stem}-${kind}.svg`] = svg;
   return { design, production, files };
 }

@@ -40,3 +40,4 @@ export {
   type GroupDelayPlotInput,
   type SwingPlotInput,
 } from './svg/plots';
+export * from './csv';

@@ -10,7 +10,7 @@ export { circuitStability, UnstableCircuitError, type CircuitStability } from '.
 export { evaluateResponse, minimumGainBandwidthHz, type ResponseEvaluation, type ErrorSplit, type GainBandwidthReport, type SwingReport } from './evaluation';
 export { evaluationGrid, type EvaluationGrid } from './evaluation-grid';
 export { precompensate, type PrecompensationReport } from './precompensation';
-export { toCHeader, toSpiceNetlist, headerModelOf, designPlots, maskBands, designHashOf, chosenTransferFunction, idealOpampCircuit, type CHeaderOptions, type HeaderExtras, type SpiceNetlistOptions, type PlotExtras } from './outputs';
+export { toCHeader, toSpiceNetlist, toResponseCsv, headerModelOf, designPlots, maskBands, designHashOf, chosenTransferFunction, idealOpampCircuit, type CHeaderOptions, type HeaderExtras, type SpiceNetlistOptions, type PlotExtras } from './outputs';
 export { toJsonReport, reportOf, REPORT_SCHEMA_VERSION } from './report';
 export { planDesignProduction, checkMeasurements, designMask, designTolerances, trimTargetsOf, planOf, type DesignProduction } from './production';
 export { productionOutputs, NO_LOWER_LIMIT_DB, NO_UPPER_LIMIT_DB, type ProductionOutputs } from './production-outputs';

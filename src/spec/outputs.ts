@@ -20,6 +20,7 @@ import {
   hashDesign,
   phasePlot,
   renderCHeader,
+  renderCsv,
   renderPlotSvg,
   swingPlot,
   zpkToDigitalSections,
@@ -247,4 +248,20 @@ function compiledFor(design: FilterDesign): CompiledAc {
     compiledCache.set(design, c);
   }
   return c;
+}
+
+/**
+ * The response of the circuit to build as CSV: frequency_hz, gain_db (chosen parts and the op-amp model),
+ * phase_deg (unwrapped), group_delay_s, and the ideal design's gain_ideal_db for comparison.
+ */
+export function toResponseCsv(design: FilterDesign): string {
+  const f = design.evaluation.frequencyHz;
+  const r = frequencyResponse(design, f);
+  return renderCsv([
+    { name: 'frequency_hz', values: f },
+    { name: 'gain_db', values: r.gainDb },
+    { name: 'phase_deg', values: r.phaseDeg },
+    { name: 'group_delay_s', values: r.groupDelayS },
+    { name: 'gain_ideal_db', values: design.evaluation.gainDb.ideal },
+  ]);
 }

@@ -4,7 +4,7 @@
  * is a streamed Monte Carlo (tolerance/monte-carlo.ts) on a coarser grid than the evaluation.
  */
 import { runMonteCarlo } from '../tolerance/index';
-import type { HeaderTestPoint, HeaderTrim } from '../export/index';
+import { renderCsv, type HeaderTestPoint, type HeaderTrim } from '../export/index';
 import type { FilterDesign } from './design-filter';
 import type { HeaderExtras, PlotExtras } from './outputs';
 import { planDesignProduction, type DesignProduction } from './production';
@@ -33,6 +33,8 @@ export interface ProductionOutputs {
   readonly report: Record<string, unknown>;
   /** Lines for the CLI summary. */
   readonly summary: string;
+  /** The Monte Carlo gain quantiles on the envelope grid, as CSV. */
+  readonly monteCarloCsv: string;
 }
 
 const clampLimit = (x: number, fallback: number): number => (Number.isFinite(x) ? x : fallback);
@@ -129,5 +131,13 @@ export function productionOutputs(design: FilterDesign, onProgress?: (done: numb
     lines.push(`  gain error at the trim frequency: sd ${t.untrimmedError.sd.toFixed(4)} dB untrimmed -> ${t.trimmedError.sd.toFixed(4)} dB trimmed; yield ${pct(t.untrimmedYield)} -> ${pct(t.trimmedYield)}; ${t.atRangeEnd} boards at the end of the range`);
   }
   for (const d of test.diagnostics) lines.push(`  ${d.code}: ${d.message}`);
-  return { production, headerExtras: { testPoints, trim }, plotExtras, report, summary: `${lines.join('\n')}\n` };
+  const monteCarloCsv = renderCsv([
+    { name: 'frequency_hz', values: grid },
+    { name: 'gain_nominal_db', values: mc.nominalGainDb },
+    { name: 'gain_mean_db', values: mc.gainDb.mean },
+    { name: 'gain_sd_db', values: mc.gainDb.standardDeviation },
+    { name: 'gain_q0.5%_db', values: mc.gainDb.quantiles[0] },
+    { name: 'gain_q99.5%_db', values: mc.gainDb.quantiles[1] },
+  ]);
+  return { production, headerExtras: { testPoints, trim }, plotExtras, report, summary: `${lines.join('\n')}\n`, monteCarloCsv };
 }

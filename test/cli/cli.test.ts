@@ -64,7 +64,7 @@ describe('gicladder design, header, netlist', () => {
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const files = readdirSync(out).sort();
-    expect(files).toEqual(expect.arrayContaining(['report.json', 'vibration_antialias_lowpass.h', 'vibration_antialias_lowpass.cir', 'vibration_antialias_lowpass-gain.svg', 'vibration_antialias_lowpass-swing.svg']));
+    expect(files).toEqual(expect.arrayContaining(['report.json', 'vibration_antialias_lowpass.h', 'vibration_antialias_lowpass.cir', 'vibration_antialias_lowpass-response.csv', 'vibration_antialias_lowpass-montecarlo.csv', 'vibration_antialias_lowpass-gain.svg', 'vibration_antialias_lowpass-swing.svg']));
     const report = JSON.parse(readFileSync(join(out, 'report.json'), 'utf8'));
     expect(report.schemaVersion).toBe(1);
     expect(report.parts.length).toBeGreaterThan(0);
