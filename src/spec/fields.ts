@@ -13,6 +13,19 @@ export const MAX_QUANTITY_LENGTH = 64;
 
 export type QuantityUnit = 'ohm' | 'F' | 'H' | 'Hz' | 's' | 'V';
 
+/**
+ * The range a quantity of each unit must lie in (zero aside, where allowed). Far beyond any GIC filter
+ * (a µHz seismic lowpass to a 10 GHz band; 1 fF to 1 F; 1 mohm to 1 Tohm), and inside it every stage's
+ * float boundary stays finite: outside, part values overflow or underflow the C header's float, the
+ * exact design frequencies round to zero, and the errors name internal fields instead of the file's
+ * (found by the robustness fuzzing, test/robustness).
+ */
+export const QUANTITY_RANGES: Readonly<Partial<Record<QuantityUnit, readonly [number, number]>>> = Object.freeze({
+  Hz: [1e-6, 1e10],
+  F: [1e-15, 1],
+  ohm: [1e-3, 1e12],
+});
+
 export interface QuantityOptions {
   /** Accept zero (default false: the value must be greater than zero). */
   allowZero?: boolean;
@@ -46,6 +59,11 @@ export function quantity(unit: QuantityUnit, options: QuantityOptions = {}) {
       }
       if (!Number.isFinite(x) || (allowZero ? x < 0 : x <= 0)) {
         ctx.issues.push({ code: 'custom', message: allowZero ? 'must be a finite number >= 0' : 'must be a finite number > 0', input: v });
+        return z.NEVER;
+      }
+      const range = QUANTITY_RANGES[unit];
+      if (range && x !== 0 && (x < range[0] || x > range[1])) {
+        ctx.issues.push({ code: 'custom', message: `must be from ${range[0]} to ${range[1]} ${unit}`, input: v });
         return z.NEVER;
       }
       return x;

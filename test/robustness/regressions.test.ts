@@ -4,6 +4,20 @@
  */
 import { describe, expect, it } from 'vitest';
 import { designFilter } from '../../src/spec/design-filter';
+import { SpecError } from '../../src/spec/spec-error';
+import { renderDesignOutputs } from '../../src/cli/design-command';
+import { GicladderError } from '../../src/errors';
+import { outputProblems } from './output-checks';
+
+/** The error designFilter throws for `spec`, or undefined. */
+function errorOf(spec: unknown): unknown {
+  try {
+    renderDesignOutputs(spec);
+  } catch (e) {
+    return e;
+  }
+  return undefined;
+}
 
 describe('robustness regressions', () => {
   it('a finite-gain op-amp too weak for the passband bound gives a diagnostic, not an INVALID_NUMBER error from formatting its infinite GBW', () => {
@@ -21,4 +35,49 @@ describe('robustness regressions', () => {
     expect(d.evaluation.passbandErrorDb.opamp).toBeGreaterThan(0.1);
     for (const x of d.diagnostics) expect(x.message).not.toMatch(/NaN|Infinity/);
   });
+
+  it('absurd quantities are refused by the design file reader, naming the field (they used to fail deep inside with internal paths or an untyped fraction.js error)', () => {
+    // Each of these passed validation and failed later: 'Division by Zero' (a plain Error from fraction.js
+    // in the embedding route), or typed errors naming 'parts[1].valueSi', 'analogSections[0].n0',
+    // 'UOUT.model.gainBandwidthHz', 'digital.sampleRateHz' or SINGULAR_CIRCUIT instead of the file's field.
+    const base = { response: { type: 'lowpass', family: 'chebyshev', order: 3, passbandEdgeHz: 1000, passbandRippleDb: 0.5 }, evaluation: { sweepPoints: 16 } };
+    const cases: [unknown, string][] = [
+      [{ ...base, response: { type: 'bandpass', family: 'butterworth', order: 2, passbandEdgeHz: [1e6, 1e300] } }, 'response.passbandEdgeHz'],
+      [{ ...base, response: { ...base.response, passbandEdgeHz: 1e-30 } }, 'response.passbandEdgeHz'],
+      [{ ...base, response: { ...base.response, passbandEdgeHz: 1e30 } }, 'response.passbandEdgeHz'],
+      [{ ...base, realization: { capacitorF: 1e-300 } }, 'realization.capacitorF'],
+      [{ ...base, realization: { capacitorF: 1e300 } }, 'realization.capacitorF'],
+      [{ ...base, realization: { impedanceOhms: 1e300 } }, 'realization.impedanceOhms'],
+      [{ ...base, realization: { gicResistanceOhms: 1e-300 } }, 'realization.gicResistanceOhms'],
+      [{ ...base, export: { sampleRateHz: 1e300 } }, 'export.sampleRateHz'],
+      [{ ...base, parts: { opamp: { model: 'two-pole', gainBandwidthHz: 1e7, secondPoleHz: 1e-300 } } }, 'parts.opamp.secondPoleHz'],
+    ];
+    for (const [spec, path] of cases) {
+      const e = errorOf(spec);
+      expect(e, path).toBeInstanceOf(SpecError);
+      expect((e as SpecError).issues.map((i) => i.path)).toContain(path);
+    }
+  });
+
+  it('the ends of the accepted ranges design, every output clean (1e-6 Hz and 1e10 Hz with 1 fF, 1 F, 1 mohm and 1 Tohm levels)', () => {
+    for (const type of ['lowpass', 'highpass', 'bandpass', 'bandstop'] as const) {
+      for (const f of [1e-6, 1e10]) {
+        for (const level of [{ capacitorF: 1e-15 }, { capacitorF: 1 }, { impedanceOhms: 1e-3 }, { impedanceOhms: 1e12 }]) {
+          const banded = type === 'bandpass' || type === 'bandstop';
+          const spec = { name: 'corner', response: { type, family: 'butterworth', order: 2, passbandEdgeHz: banded ? (f > 1 ? [f / 2, f] : [f, 2 * f]) : f }, realization: level, evaluation: { sweepPoints: 16 } };
+          let r;
+          try {
+            r = renderDesignOutputs(spec);
+          } catch (e) {
+            // A refusal is acceptable only as a typed error; none is expected here.
+            expect(e).toBeInstanceOf(GicladderError);
+            throw e;
+          }
+          expect(outputProblems(r.files), JSON.stringify(spec)).toEqual([]);
+          expect(r.design.evaluation.prototypeDeviationDb).toBeLessThan(0.011); // as the examples (FDNR DC-path resistors <= 0.01 dB)
+        }
+      }
+    }
+  });
 });
+
