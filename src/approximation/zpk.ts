@@ -79,9 +79,12 @@ export function frequencyAtAttenuation(zpk: Zpk, attenuationDb: number): number 
     }
     hi = lo * 2;
   }
+  // Doubling past the largest double gives Infinity (the level is never reached by a finite frequency),
+  // halving below the smallest gives 0: no bracket. (An infinite bracket made the bisection loop on NaN forever.)
+  if (!(lo > 0 && Number.isFinite(hi))) return Number.NaN;
   for (;;) {
     const mid = lo + (hi - lo) / 2;
-    if (mid <= lo || mid >= hi) break;
+    if (!(mid > lo && mid < hi)) break;
     if (above(mid)) lo = mid;
     else hi = mid;
   }

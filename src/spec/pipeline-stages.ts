@@ -15,6 +15,7 @@ import type { OpampModel } from '../netlist/opamp';
 import type { BufferChoice, RealizationMethod } from '../substitution/realization';
 import { nearestPreferredExact } from '../units/eseries';
 import type { DesignSpec } from './parse-spec';
+import { UnrealizableError } from '../errors';
 
 /**
  * Significant digits of a float frequency made exact: 12 digits move a band edge by < 1e-11 relative,
@@ -68,7 +69,11 @@ export function prototypeEdgeRadPerS(spec: DesignSpec, prototype: Zpk): number {
   const r = spec.response;
   if (r.family === 'chebyshev' || r.family === 'elliptic') return 1;
   if (r.family === 'bessel' && r.besselNormalization !== 'magnitude') return 1;
-  return frequencyAtAttenuation(prototype, r.passbandRippleDb);
+  const w = frequencyAtAttenuation(prototype, r.passbandRippleDb);
+  if (!(w > 0 && Number.isFinite(w))) {
+    throw new UnrealizableError('UNREALIZABLE', 'response.passbandRippleDb', r.passbandRippleDb, `the ${r.family} prototype of order ${prototype.poles.length} never loses ${r.passbandRippleDb} dB at a finite frequency: no passband edge to scale to`);
+  }
+  return w;
 }
 
 /**

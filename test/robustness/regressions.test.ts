@@ -6,7 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { designFilter } from '../../src/spec/design-filter';
 import { SpecError } from '../../src/spec/spec-error';
 import { renderDesignOutputs } from '../../src/cli/design-command';
-import { GicladderError } from '../../src/errors';
+import { GicladderError, UnrealizableError } from '../../src/errors';
+import { frequencyAtAttenuation, gainDbAt } from '../../src/approximation/index';
 import { outputProblems } from './output-checks';
 
 /** The error designFilter throws for `spec`, or undefined. */
@@ -78,6 +79,22 @@ describe('robustness regressions', () => {
         }
       }
     }
+  });
+
+  it('frequencyAtAttenuation returns NaN for a level no finite frequency reaches (it looped forever once the bracket doubled to Infinity)', () => {
+    // Found by fuzzing designFilter: a Bessel bandstop with passbandRippleDb 2^53 hung the process.
+    const bessel4 = { zeros: [], poles: [{ re: -1, im: 0 }, { re: -1, im: 0 }, { re: -1, im: 1 }, { re: -1, im: -1 }], gain: 2 };
+    expect(frequencyAtAttenuation(bessel4, 2 ** 53)).toBeNaN();
+    expect(frequencyAtAttenuation(bessel4, 1e308)).toBeNaN();
+    // The ordinary case still bisects to the level: the gain there is the level asked for.
+    const w = frequencyAtAttenuation(bessel4, 3);
+    expect(-gainDbAt(bessel4, w)).toBeCloseTo(3, 9);
+  });
+
+  it('a passband loss the prototype never reaches is refused naming response.passbandRippleDb (was a hang)', () => {
+    const e = errorOf({ response: { type: 'bandstop', family: 'bessel', order: 4, passbandEdgeHz: [1, 1.8735], passbandRippleDb: 2 ** 53 }, evaluation: { sweepPoints: 16 } });
+    expect(e).toBeInstanceOf(UnrealizableError);
+    expect((e as UnrealizableError).path).toBe('response.passbandRippleDb');
   });
 });
 
