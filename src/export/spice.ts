@@ -101,13 +101,17 @@ export function sanitiseSpiceName(text: string): string {
   return s.length > 0 ? s : '_';
 }
 
-/** One printable line: control characters and newlines become spaces, a leading '*' or '.' is dropped. */
+/**
+ * One printable line: control characters and newlines become spaces, and it starts with a letter or a
+ * digit (ngspice warns about, and rewrites, a title line that starts with '"', '*', '.' or other
+ * punctuation).
+ */
 function sanitiseTitle(text: string): string {
   const oneLine = String(text)
     .replace(/[^\x20-\x7e]/g, ' ')
     .replace(/\s+/g, ' ')
     .trim()
-    .replace(/^[*.\s]+/, '');
+    .replace(/^[^A-Za-z0-9]+/, '');
   return (oneLine.length > 0 ? oneLine : 'gicladder netlist').slice(0, MAX_TITLE_LENGTH);
 }
 

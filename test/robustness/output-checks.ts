@@ -65,7 +65,8 @@ export function netlistProblems(netlist: string): string[] {
   const problems: string[] = [];
   if (!/^[\x20-\x7e\n]*$/.test(netlist)) problems.push('a character outside printable ASCII and newline');
   const lines = netlist.split('\n');
-  if (lines[0].startsWith('.') || lines[0].startsWith('+')) problems.push(`the title line starts a card: ${lines[0]}`);
+  // SPICE reads the first line as the title, but ngspice warns about (and rewrites) one that starts with punctuation.
+  if (!/^[A-Za-z0-9]/.test(lines[0])) problems.push(`the title line starts with punctuation: ${lines[0]}`);
   if (lines[lines.length - 1] !== '' || lines[lines.length - 2] !== '.end') problems.push('does not end with .end and a newline');
   for (const [n, line] of lines.slice(1).entries()) {
     const t = line.trim();
