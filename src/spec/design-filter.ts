@@ -247,6 +247,11 @@ type Note = (stage: string, severity: DiagnosticSeverity, code: string, message:
 function noteEvaluation(spec: DesignSpec, e: ResponseEvaluation, note: Note): void {
   const pe = e.passbandErrorDb;
   note('evaluation', 'info', 'PASSBAND_ERROR', `worst passband error ${pe.total.toFixed(3)} dB: ${pe.rounding.toFixed(3)} dB from preferred values, ${pe.opamp.toFixed(3)} dB from the op-amp model`);
+  if (pe.rounding > spec.response.passbandRippleDb) {
+    // Preferred values that move the passband by more than the whole passband allowance have lost the design
+    // (a narrow bandpass is the usual case: its element values need more digits than any E-series has).
+    note('selection', 'warning', 'ROUNDING_ERROR', `preferred values move the passband by up to ${pe.rounding.toFixed(3)} dB, more than the ${Number(spec.response.passbandRippleDb.toPrecision(4))} dB passband allowance; try parts.selection 'search' or 'exact' (with trimming), a finer series, or another capacitorF`);
+  }
   if (e.prototypeDeviationDb > 0.05) note('evaluation', 'warning', 'PROTOTYPE_DEVIATION', `the ideal circuit departs from the scaled prototype by ${e.prototypeDeviationDb.toFixed(3)} dB in the passband`);
   if (e.stopband) {
     const s = e.stopband.minAttenuationDb;
@@ -261,7 +266,7 @@ function noteEvaluation(spec: DesignSpec, e: ResponseEvaluation, note: Note): vo
     note('evaluation', 'warning', 'OPAMP_GAIN_TOO_LOW', `the op-amp model's finite open-loop gain costs ${pe.opamp.toFixed(3)} dB of passband error, above the ${g.forPassbandErrorDb} dB allowed`);
   } else if (!g.meets) {
     const need = Number.isFinite(g.requiredHz) ? formatQuantity(g.requiredHz, 'Hz') : 'more than any GBW searched';
-    note('evaluation', 'warning', 'GBW_TOO_LOW', `the op-amp's gain-bandwidth ${formatQuantity(g.chosenHz, 'Hz')} is below the ${need} needed for ${g.forPassbandErrorDb} dB passband error`);
+    note('evaluation', 'warning', 'GBW_TOO_LOW', `the op-amp's gain-bandwidth ${formatQuantity(g.chosenHz, 'Hz')} is below the ${need} needed for ${g.forPassbandErrorDb} dB passband error; with it the op-amps move the passband by up to ${pe.opamp.toFixed(3)} dB`);
   } else if (Number.isFinite(g.requiredHz)) {
     note('evaluation', 'info', 'GBW_REQUIRED', `${formatQuantity(g.requiredHz, 'Hz')} gain-bandwidth keeps the op-amp error within ${g.forPassbandErrorDb} dB`);
   }
