@@ -239,23 +239,6 @@ export function expectTyped<T>(tally: ErrorTally, input: unknown, f: () => T): T
   }
 }
 
-/** The same for async functions. */
-export async function expectTypedAsync<T>(tally: ErrorTally, input: unknown, f: () => Promise<T>): Promise<T | undefined> {
-  tally.runs++;
-  try {
-    const r = await f();
-    tally.accepted++;
-    return r;
-  } catch (e) {
-    if (!(e instanceof GicladderError) || typeof e.code !== 'string' || typeof e.path !== 'string') {
-      throw new Error(`untyped error ${(e as Error)?.constructor?.name}: ${(e as Error)?.stack ?? String(e)}\ninput: ${safeShow(input)}`);
-    }
-    const key = `${e.constructor.name}/${e.code}`;
-    tally.errors.set(key, (tally.errors.get(key) ?? 0) + 1);
-    return undefined;
-  }
-}
-
 /** A one-line rendering of any value for failure messages (never throws). */
 export function safeShow(v: unknown): string {
   try {
@@ -282,9 +265,6 @@ export function nonFiniteNumbers(value: unknown, path = '', out: string[] = [], 
   for (const [k, v] of Object.entries(value)) nonFiniteNumbers(v, path === '' ? k : `${path}.${k}`, out, seen);
   return out;
 }
-
-/** Words that mean a non-finite number leaked into text output. */
-export const NON_FINITE_TEXT = /\b(NaN|-?Infinity|inf|nan)\b/;
 
 /** A snapshot of Object.prototype's own property names and descriptors' values, to compare after a run. */
 export function prototypeSnapshot(): string {
