@@ -181,8 +181,11 @@ export function denormalise(spec: DesignSpec, synthesis: LadderSynthesis, edgeRa
 /**
  * The route 'auto' takes: fdnr for lowpass (every capacitor of the minimum-capacitor ladder is
  * grounded, so every one becomes a grounded FDNR and no inductor is left), simulated-inductor for
- * highpass (the inductors from the prototype's shunt capacitors are all grounded), gic-embedding for
- * bandpass and bandstop (their series resonators hold floating inductors).
+ * all-pole highpass (the inductors from the prototype's shunt capacitors are all grounded),
+ * gic-embedding for bandpass and bandstop (their series resonators hold floating inductors) and for
+ * highpass with finite transmission zeros (elliptic, inverse Chebyshev: the series-first ladder's
+ * shunt L-C arms leave a node reached only through capacitors, which has no DC path once the grounded
+ * inductor becomes a GIC; the embedding keeps a DC path).
  */
 export function chooseMethod(spec: DesignSpec): RealizationMethod {
   const m = spec.realization.method;
@@ -191,7 +194,7 @@ export function chooseMethod(spec: DesignSpec): RealizationMethod {
     case 'lowpass':
       return 'fdnr';
     case 'highpass':
-      return 'simulated-inductor';
+      return spec.response.family === 'elliptic' || spec.response.family === 'inverse-chebyshev' ? 'gic-embedding' : 'simulated-inductor';
     default:
       return 'gic-embedding';
   }
