@@ -85,7 +85,7 @@ const realization = z
       .describe(
         "How the LC ladder becomes an active circuit. 'simulated-inductor': grounded inductors become GIC inductors; 'fdnr': the Bruton 1/s " +
           "transform makes every capacitor a grounded FDNR (lowpass); 'gic-embedding': floating inductors by GIC embedding; 'auto' (the default): " +
-          'fdnr for lowpass (all capacitors grounded in the minimum-capacitor form), simulated-inductor for highpass, gic-embedding for bandpass and bandstop.',
+          'fdnr for lowpass (all capacitors grounded in the minimum-capacitor form), simulated-inductor for all-pole highpass, gic-embedding for bandpass, bandstop and highpass with finite zeros (elliptic, inverse-chebyshev).',
       ),
     impedanceOhms: quantity('ohm')
       .optional()
