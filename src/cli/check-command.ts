@@ -10,6 +10,11 @@ import { InputFileError, readJsonFile } from './spec-file';
 import { cautionFor } from './caution';
 import type { CliIo } from './io';
 
+/** Board ids come from the CSV as written: control characters are shown as \\xNN so they cannot drive the terminal. */
+export function printable(text: string): string {
+  return text.replace(/[\u0000-\u001f\u007f-\u009f]/g, (c) => `\\x${c.charCodeAt(0).toString(16).padStart(2, '0')}`);
+}
+
 export async function runCheckCommand(specPath: string, csvPath: string, options: { json?: boolean }, io: CliIo): Promise<number> {
   const design = designFilter(readJsonFile(specPath));
   const caution = cautionFor(design.spec);
@@ -31,7 +36,7 @@ export async function runCheckCommand(specPath: string, csvPath: string, options
     for (const b of result.boards) {
       if (b.pass) continue;
       const bad = b.points.filter((p) => p.status !== 'pass').map((p) => `${p.id} ${p.status}${p.gainDb !== undefined ? ` (${p.gainDb.toFixed(3)} dB)` : ''}`);
-      lines.push(`  FAIL ${b.board}: ${bad.join(', ')}`);
+      lines.push(`  FAIL ${printable(b.board)}: ${bad.join(', ')}`);
     }
     for (const p of s.pointFailures) if (p.failed > 0 || p.missing > 0) lines.push(`  point ${p.id} (${p.frequencyHz} Hz): ${p.failed} failed, ${p.missing} missing`);
     for (const d of result.diagnostics) lines.push(`  ${d.code}: ${d.message}`);

@@ -15,6 +15,10 @@ import { E_SERIES_NAMES } from '../units/eseries';
 import { frequencyOrPair, positiveNumber, quantity } from './fields';
 
 /** Longest design name kept (for display; identifiers derived from it are sanitised downstream). */
+/** Beyond these no filter or op-amp exists; the bounds keep errors at the field instead of deep in the chain. */
+const MAX_RIPPLE_DB = 60;
+const MAX_ATTENUATION_DB = 300;
+const MAX_OPEN_LOOP_GAIN_DB = 300;
 export const MAX_NAME_LENGTH = 1000;
 
 /** 10 log10(2): the loss of a Butterworth response at its half-power frequency, dB. */
@@ -51,12 +55,14 @@ const response = z
       .optional()
       .describe('The stopband edge in Hz where the loss must reach stopbandAttenuationDb; [low, high] for bandpass and bandstop. Default: none (then order is required).'),
     passbandRippleDb: positiveNumber()
+      .max(MAX_RIPPLE_DB)
       .optional()
       .describe(
         'The largest passband loss in dB (the ripple for chebyshev and elliptic). Default 0.5 dB for chebyshev and elliptic, ' +
           '10 log10(2) = 3.0103 dB (the half-power point) for butterworth, inverse-chebyshev and bessel.',
       ),
     stopbandAttenuationDb: positiveNumber()
+      .max(MAX_ATTENUATION_DB)
       .optional()
       .describe('The smallest stopband loss in dB (inverse-chebyshev, elliptic, and order estimation). Default 40 dB.'),
     besselNormalization: z
@@ -110,7 +116,7 @@ const opampCommon = {
     .describe('The peak output voltage swing in volts (symmetric about mid-supply). Default supplyV/2 - 1.5 V (common practice, no source).'),
 };
 const gbw = quantity('Hz').describe('The gain-bandwidth product in Hz.');
-const a0Db = z.number().finite().describe('The open-loop DC gain in dB. Default 100 dB.');
+const a0Db = z.number().min(0).max(MAX_OPEN_LOOP_GAIN_DB).describe('The open-loop DC gain in dB, 0 to 300. Default 100 dB.');
 const opamp = z
   .discriminatedUnion('model', [
     z.strictObject({ model: z.literal('ideal').describe('The nullor: infinite gain.'), ...opampCommon }),

@@ -129,3 +129,12 @@ describe('gicladder design, header, netlist', () => {
     expect(r.stderr).toMatch(/licensed/);
   }, 120_000);
 });
+
+import { printable } from '../../src/cli/check-command';
+describe('gicladder check output', () => {
+  it('shows control characters in board ids as \\xNN, so a CSV cannot drive the terminal', () => {
+    expect(printable('SN1\u001b[2J')).toBe('SN1\\x1b[2J');
+    expect(printable('A\nB\u007f')).toBe('A\\x0aB\\x7f');
+    expect(printable('Ø-board')).toBe('Ø-board');
+  });
+});
