@@ -6,3 +6,4 @@ export * from './rational-function';
 export * from './roots';
 export * from './routh-hurwitz';
 export * from './compensated-horner';
+export * from './normal';

@@ -9,7 +9,7 @@
  * Kernels: NaN for sigma <= 0 or non-finite inputs, no throw.
  */
 import type { Interval } from './interval';
-import { normalCdf, normalSf } from './normal';
+import { normalCdf, normalSf } from '../algebra/normal';
 
 export interface ProcessCapability {
   /** Potential capability (spread against width); NaN when a limit is open. */

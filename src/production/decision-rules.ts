@@ -17,7 +17,7 @@
  */
 import { InvalidInputError, requireFinite } from '../errors';
 import type { Interval } from './interval';
-import { normalCdf } from './normal';
+import { normalCdf } from '../algebra/normal';
 
 export type DecisionRule =
   | { readonly rule: 'simple-acceptance' }

@@ -3,7 +3,7 @@
  * risks (JCGM 106), process capability, measured-data checking, trim tables and trim simulation.
  * Browser-safe: reading files from disk is the CLI's job (feed lines to checkMeasurementsStream).
  */
-export * from './normal';
+export * from '../algebra/normal';
 export * from './interval';
 export * from './statistics';
 export * from './quadrature';

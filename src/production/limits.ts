@@ -18,7 +18,7 @@
 import { InvalidInputError, requireFinite } from '../errors';
 import { acceptanceInterval, guardBandWidth, type DecisionRule, type MeasurementUncertainty } from './decision-rules';
 import type { Interval } from './interval';
-import { normalQuantile } from './normal';
+import { normalQuantile } from '../algebra/normal';
 import { globalRisks, type ProcessModel } from './risk';
 import { processCapability, type ProcessCapability } from './capability';
 import { quantileOfSorted, sortedFinite, summarizeSamples, type SampleSummary } from './statistics';

@@ -13,7 +13,7 @@
  * Kernels: NaN inputs give NaN results, no throw.
  */
 import type { Interval } from './interval';
-import { normalCdf, normalPdf, normalSf } from './normal';
+import { normalCdf, normalPdf, normalSf } from '../algebra/normal';
 import { integrate } from './quadrature';
 
 /** The distribution of a test point's true value over the production population. */

@@ -9,7 +9,7 @@
  * terminated ladder sits at -6.02 dB in its passband: write the mask for that).
  */
 import { InvalidInputError, requireFinite, requireInteger } from '../errors';
-import { normalCentralMass } from './distributions';
+import { normalQuantile } from '../algebra/normal';
 
 export interface PassbandLimit {
   readonly fromHz: number;
@@ -109,21 +109,11 @@ export function maskFrequencyGrid(mask: SpecMask, pointsPerBand = DEFAULT_POINTS
   return Float64Array.from(out.filter((f, i) => i === 0 || f !== out[i - 1]));
 }
 
-/** Bisection steps for the two-sided normal quantile: 200 halvings of [0, 40] reach the double's resolution. */
-const QUANTILE_BISECTIONS = 200;
-
-/** k with P(|Z| <= k) = confidence for a standard normal Z, by bisection on the integrated density. */
+/** k with P(|Z| <= k) = confidence for a standard normal Z: the normal quantile at (1 + confidence)/2. */
 export function twoSidedNormalQuantile(confidence: number): number {
   requireFinite(confidence, 'confidence');
   if (!(confidence > 0 && confidence < 1)) throw new InvalidInputError('OUT_OF_RANGE', 'confidence', confidence, 'must be between 0 and 1 (exclusive)');
-  let lo = 0;
-  let hi = 40;
-  for (let i = 0; i < QUANTILE_BISECTIONS && hi - lo > 1e-15; i++) {
-    const mid = (lo + hi) / 2;
-    if (normalCentralMass(mid) < confidence) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
+  return normalQuantile((1 + confidence) / 2);
 }
 
 export interface ProportionInterval {

@@ -227,7 +227,7 @@ describe('quadrature', () => {
   });
 });
 
-import * as normalModule from '../../src/production/normal';
+import * as normalModule from '../../src/algebra/normal';
 function require_normal() {
   return normalModule;
 }

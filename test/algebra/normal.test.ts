@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { erf, erfc, normalCdf, normalQuantile, normalSf, normalSfQuantile } from '../../src/production/normal';
+import { erf, erfc, normalCdf, normalQuantile, normalSf, normalSfQuantile } from '../../src/algebra/normal';
 
 const fixture = JSON.parse(readFileSync(new URL('../fixtures/mpmath/normal.json', import.meta.url), 'utf8')) as {
   erfc: [number, number][];
