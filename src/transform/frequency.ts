@@ -11,7 +11,6 @@
  */
 import { Fraction, toFraction, type RationalLike } from '../algebra/rational';
 import { RationalFunction } from '../algebra/rational-function';
-import { Poly } from '../algebra/poly';
 import { InvalidInputError } from '../errors';
 import { element, mapLadder, type NetworkElement, type Network, type NetworkLadder } from './network';
 
@@ -64,40 +63,44 @@ export function lowpassToHighpass(l: NetworkLadder, omegaRadPerS: RationalLike):
   });
 }
 
+/**
+ * The two resonator maps share their shape: each reactive element becomes an L-C pair, joined in
+ * series or in parallel, with element values from the old one. `pair` gives, for an element of value
+ * x, the two new parts and how they are joined.
+ */
+function resonatorMap(
+  l: NetworkLadder,
+  map: string,
+  pair: (e: NetworkElement) => { kind: 'series' | 'parallel'; first: NetworkElement; second: NetworkElement },
+): NetworkLadder {
+  return mapLadder(l, (e): Network => {
+    if (e.kind === 'R') return e;
+    if (e.kind === 'D') return refuseFdnr(e, map);
+    const p = pair(e);
+    return { kind: p.kind, parts: [p.first, p.second] };
+  });
+}
+
 /** s -> (s^2 + w0^2)/(B s), with w0^2 and B in (rad/s)^2 and rad/s. */
 export function lowpassToBandpass(l: NetworkLadder, w0Squared: RationalLike, bandwidthRadPerS: RationalLike): NetworkLadder {
   const w2 = positive(w0Squared, 'w0Squared');
   const bw = positive(bandwidthRadPerS, 'bandwidthRadPerS');
-  return mapLadder(l, (e): Network => {
-    switch (e.kind) {
-      case 'R':
-        return e;
-      case 'L':
-        return { kind: 'series', parts: [element('L', e.value.div(bw), e.origin), element('C', bw.div(w2.mul(e.value)), e.origin)] };
-      case 'C':
-        return { kind: 'parallel', parts: [element('C', e.value.div(bw), e.origin), element('L', bw.div(w2.mul(e.value)), e.origin)] };
-      case 'D':
-        return refuseFdnr(e, 'bandpass');
-    }
-  });
+  return resonatorMap(l, 'bandpass', (e) =>
+    e.kind === 'L'
+      ? { kind: 'series', first: element('L', e.value.div(bw), e.origin), second: element('C', bw.div(w2.mul(e.value)), e.origin) }
+      : { kind: 'parallel', first: element('C', e.value.div(bw), e.origin), second: element('L', bw.div(w2.mul(e.value)), e.origin) },
+  );
 }
 
 /** s -> B s/(s^2 + w0^2). */
 export function lowpassToBandstop(l: NetworkLadder, w0Squared: RationalLike, bandwidthRadPerS: RationalLike): NetworkLadder {
   const w2 = positive(w0Squared, 'w0Squared');
   const bw = positive(bandwidthRadPerS, 'bandwidthRadPerS');
-  return mapLadder(l, (e): Network => {
-    switch (e.kind) {
-      case 'R':
-        return e;
-      case 'L':
-        return { kind: 'parallel', parts: [element('L', e.value.mul(bw).div(w2), e.origin), element('C', bw.mul(e.value).inverse(), e.origin)] };
-      case 'C':
-        return { kind: 'series', parts: [element('C', e.value.mul(bw).div(w2), e.origin), element('L', bw.mul(e.value).inverse(), e.origin)] };
-      case 'D':
-        return refuseFdnr(e, 'bandstop');
-    }
-  });
+  return resonatorMap(l, 'bandstop', (e) =>
+    e.kind === 'L'
+      ? { kind: 'parallel', first: element('L', e.value.mul(bw).div(w2), e.origin), second: element('C', bw.mul(e.value).inverse(), e.origin) }
+      : { kind: 'series', first: element('C', e.value.mul(bw).div(w2), e.origin), second: element('L', bw.mul(e.value).inverse(), e.origin) },
+  );
 }
 
 /** The maps on transfer functions that the ladder maps above realise, for the proofs. */
@@ -108,4 +111,3 @@ export const transferFunctionMaps = {
   bandstop: (h: RationalFunction, w0Squared: RationalLike, bw: RationalLike) => h.substituteBandstop(w0Squared, bw),
 };
 
-export { Poly };

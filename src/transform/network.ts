@@ -6,7 +6,7 @@
  * Element values are exact rationals in SI base units: R in ohm, L in henry, C in farad, and the FDNR
  * constant D in farad-seconds with Z = 1/(s^2 D).
  */
-import { Fraction, Q1, fractionFromDouble, toFraction, type RationalLike } from '../algebra/rational';
+import { Fraction, fractionFromDouble, toFraction, type RationalLike } from '../algebra/rational';
 import { RationalFunction } from '../algebra/rational-function';
 import { Poly } from '../algebra/poly';
 import type { Branch, BranchPlacement, ExactLadder, Ladder } from '../ladder/types';
@@ -138,4 +138,3 @@ function positiveExact(x: number | Fraction, path: string): Fraction {
   return f;
 }
 
-export { Q1 };

@@ -14,7 +14,7 @@
 import { expect, it } from 'vitest';
 import { describeWithNgspice } from '../helpers/ngspice-vitest';
 import { runNgspiceAc } from '../helpers/ngspice';
-import { fdnrLadder7, gicFdnrLowpass, gicInductorBandpass } from '../helpers/gic-circuits';
+import { fdnrLadder7, fdnrLowpassTerminations, gicFdnrLowpass, gicInductorBandpass } from '../helpers/gic-circuits';
 import { circuitToSpice } from '../../src/export/spice';
 import { compileAc, transferFunction } from '../../src/analysis/index';
 import { Circuit, type OpampModel } from '../../src/netlist/index';
@@ -78,14 +78,7 @@ describeWithNgspice('AC response equals ngspice', () => {
 
   it('an FDNR D element, exported as its controlled-source equivalent, matches the exact response', () => {
     // the Bruton lowpass with the GIC replaced by the D element it realises: D = C1 C3 R2 R4 / R5
-    const c = new Circuit()
-      .addCapacitor('CS', 'in', 'a', '1e-8')
-      .addResistor('RDCS', 'in', 'a', '968170')
-      .addResistor('R1', 'a', 'b', '15915')
-      .addResistor('R3', 'b', 'out', '15915')
-      .addCapacitor('CL', 'out', '0', '1e-8')
-      .addResistor('RDCL', 'out', '0', '1e6')
-      .addFdnr('D1', 'b', '0', '3.1831e-12');
+    const c = fdnrLowpassTerminations().addFdnr('D1', 'b', '0', '3.1831e-12');
     const result = runNgspiceAc(circuitToSpice(c, { acSweep: { pointsPerDecade: 20, startHz: 10, stopHz: 1e4 } }));
     if (result.status !== 'ok') throw new Error('ngspice vanished');
     expect(result.points.length).toBeGreaterThanOrEqual(MIN_POINTS);

@@ -19,3 +19,14 @@ export function expectThrows(run: () => unknown, cls: abstract new (...args: nev
 export function expectInvalid(run: () => unknown, code: string, path?: string): void {
   expectThrows(run, InvalidInputError, code, path);
 }
+
+/** The code of the InvalidInputError `run` throws (asserting the class), or 'none' when it does not throw. */
+export function invalidCode(run: () => unknown): string {
+  try {
+    run();
+  } catch (e) {
+    expect(e).toBeInstanceOf(InvalidInputError);
+    return (e as InvalidInputError).code;
+  }
+  return 'none';
+}

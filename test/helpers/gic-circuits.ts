@@ -43,20 +43,24 @@ export function gicInductorBandpass(opamp: OpampModel): Circuit {
   return addGic(c, 'G1', 'out', [{ kind: 'R', ohms: '1000' }, { kind: 'R', ohms: '1000' }, { kind: 'R', ohms: '1000' }, { kind: 'C', farads: '1e-8' }, { kind: 'R', ohms: '1000' }], opamp);
 }
 
-/**
- * A GIC FDNR (C in positions 1 and 3: D = C1 C3 R2 R4 / R5) in the third-order Butterworth lowpass
- * L1 = 1, C2 = 2, L3 = 1 (1 ohm, 1 rad/s) after the Bruton transform, at 1 kHz with 10 nF:
- * in -CS- a -R1- b -R3- out, the FDNR at b, CL from out to ground, DC-path resistors across CS and CL.
- */
-export function gicFdnrLowpass(opamp: OpampModel): Circuit {
-  const c = new Circuit()
+/** The passive part of {@link gicFdnrLowpass}: everything but the FDNR at node b. */
+export function fdnrLowpassTerminations(): Circuit {
+  return new Circuit()
     .addCapacitor('CS', 'in', 'a', '1e-8')
     .addResistor('RDCS', 'in', 'a', '968170')
     .addResistor('R1', 'a', 'b', '15915')
     .addResistor('R3', 'b', 'out', '15915')
     .addCapacitor('CL', 'out', '0', '1e-8')
     .addResistor('RDCL', 'out', '0', '1e6');
-  return addGic(c, 'G1', 'b', [{ kind: 'C', farads: '1e-8' }, { kind: 'R', ohms: '15915' }, { kind: 'C', farads: '1e-8' }, { kind: 'R', ohms: '31831' }, { kind: 'R', ohms: '15915' }], opamp);
+}
+
+/**
+ * A GIC FDNR (C in positions 1 and 3: D = C1 C3 R2 R4 / R5) in the third-order Butterworth lowpass
+ * L1 = 1, C2 = 2, L3 = 1 (1 ohm, 1 rad/s) after the Bruton transform, at 1 kHz with 10 nF:
+ * in -CS- a -R1- b -R3- out, the FDNR at b, CL from out to ground, DC-path resistors across CS and CL.
+ */
+export function gicFdnrLowpass(opamp: OpampModel): Circuit {
+  return addGic(fdnrLowpassTerminations(), 'G1', 'b', [{ kind: 'C', farads: '1e-8' }, { kind: 'R', ohms: '15915' }, { kind: 'C', farads: '1e-8' }, { kind: 'R', ohms: '31831' }, { kind: 'R', ohms: '15915' }], opamp);
 }
 
 /** A 7th-order Butterworth lowpass ladder value g_k = 2 sin((2k - 1) pi / 14) (closed form, e.g. Zverev, "Handbook of Filter Synthesis", 1967; from memory). */

@@ -6,6 +6,7 @@ import { InvalidInputError } from '../../src/errors';
 import { computeSensitivities } from '../../src/tolerance/sensitivity';
 import { circuitToJson, circuitFromJson, withValues } from '../../src/tolerance/circuit-json';
 import { gicFdnrLowpass, gicInductorBandpass } from '../helpers/gic-circuits';
+import { invalidCode } from '../helpers/expect-error';
 
 const SINGLE_POLE: OpampModel = { model: 'single-pole', gainBandwidthHz: 1e6, openLoopGainDb: 100 };
 const spec = { input: 'in', output: 'out' } as const;
@@ -129,15 +130,7 @@ describe('computeSensitivities', () => {
 
   it('rejects unknown and unsuitable parameters and bad frequencies', () => {
     const c = gicFdnrLowpass({ model: 'ideal' });
-    const codes = (f: () => unknown) => {
-      try {
-        f();
-      } catch (e) {
-        expect(e).toBeInstanceOf(InvalidInputError);
-        return (e as InvalidInputError).code;
-      }
-      return 'none';
-    };
+    const codes = invalidCode;
     expect(codes(() => computeSensitivities(c, spec, [1], { parameters: ['nope'] }))).toBe('INVALID_ARGUMENT');
     expect(codes(() => computeSensitivities(c, spec, [1], { parameters: ['G1_UA'] }))).toBe('INVALID_ARGUMENT'); // ideal: no GBW
     expect(codes(() => computeSensitivities(c, spec, []))).toBe('INVALID_ARGUMENT');
