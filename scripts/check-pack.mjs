@@ -2,7 +2,7 @@
 // files, bin) and @arethetypeswrong/cli (types resolve for ESM and CJS consumers), then smoke-tests the
 // built files: the CJS and ESM entries load and design a filter, the Node-only entry runs a parallel
 // Monte Carlo on worker threads, and the CLI answers. Part of `npm test`.
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
@@ -32,6 +32,9 @@ try {
   if (r.trials !== 2048) throw new Error(`parallel Monte Carlo from dist ran ${r.trials} trials`);
   const help = execFileSync('node', ['dist/cli.js', '--help'], { encoding: 'utf8' });
   if (!help.includes('gicladder')) throw new Error('the built CLI did not answer --help');
+  // A reader that closes the pipe before the output comes (here `true`) must not make the CLI crash with an unhandled EPIPE.
+  const piped = spawnSync('bash', ['-c', 'node dist/cli.js netlist examples/vibration-antialias-lowpass.json | true'], { encoding: 'utf8' });
+  if (/EPIPE/.test(piped.stderr)) throw new Error(`the built CLI crashed on a closed pipe:\n${piped.stderr}`);
   console.log('package check passed');
 } finally {
   rmSync(dir, { recursive: true, force: true });

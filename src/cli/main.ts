@@ -137,6 +137,14 @@ function isMain(): boolean {
 }
 
 if (isMain()) {
+  // A reader that stops early (`gicladder netlist x.json | head`) closes the pipe: end quietly, as
+  // command-line tools do, instead of an unhandled EPIPE.
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (err: NodeJS.ErrnoException) => {
+      if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+      throw err;
+    });
+  }
   runCli(process.argv.slice(2), { stdout: (t) => process.stdout.write(t), stderr: (t) => process.stderr.write(t) }).then((code) => {
     process.exitCode = code;
   });
