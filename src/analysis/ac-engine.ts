@@ -19,6 +19,8 @@ import { resolveImpedance, resolveTransfer, type Combination, type MnaProblem, t
 import { assertTopologyWithPort } from './transfer-function';
 import { factorSparseLu, planSparseLu, solveSparseLu, type ComplexSample, type SparseLuPlan } from './sparse-lu';
 import { generateLuKernels, type LuKernels } from './lu-codegen';
+import { generateTransferKernel, type TransferKernel } from './transfer-codegen';
+import { generateWeightKernel, type WeightKernel } from './weight-codegen';
 
 /**
  * Frequencies (Hz) at which the pivot order is checked numerically at compile time: six decades apart
@@ -74,8 +76,14 @@ export interface CompiledAc {
   parameterIndex(name: string): number;
   /** Sets a component value ('R1' ohms, 'C3' farads, 'U1.unityGainRadPerS', ...). */
   setValue(name: string, value: number): void;
-  /** Sets a parameter by index (no name lookup: the Monte Carlo inner loop). */
+  /** Sets a parameter by index (no name lookup). */
   setParameter(index: number, value: number): void;
+  /**
+   * Sets values[k] into parameter indices[k] for every k, then recomputes the weights once (the Monte
+   * Carlo inner loop: cheaper than one setParameter per value when many change). Same result, bit for
+   * bit, as setParameter for each in turn. Indices and values are not validated here.
+   */
+  setParameters(indices: ArrayLike<number>, values: ArrayLike<number>): void;
   getValue(name: string): number;
   /** Replaces an op-amp's model; it must be of the same kind as the compiled one (same terms). */
   setOpampModel(name: string, model: OpampModel): void;
@@ -132,8 +140,6 @@ class AcEngine implements CompiledAc {
   private readonly gCol: Int32Array;
   private readonly gPow: Int32Array;
   private readonly gWeight: Float64Array;
-  private readonly gTermStart: Int32Array;
-  private readonly gTerms: Int32Array;
   /** Group index ranges of the four classes of j^k: [cls[c], cls[c + 1]). */
   private readonly cls: Int32Array;
   // parameter -> the terms it enters
@@ -162,6 +168,12 @@ class AcEngine implements CompiledAc {
   private readonly opampKinds: Map<string, OpampModel['model']>;
   private readonly tmp = new Float64Array(8);
   private readonly kernels: LuKernels | null;
+  /** The fused fill-factor-solve of H alone (transfer-codegen.ts), for transferAt. */
+  private readonly transferKernel: TransferKernel | null;
+  /** Every term and group weight from the parameters (weight-codegen.ts), for setParameters. */
+  private readonly weightKernel: WeightKernel | null;
+  private readonly gTermStart: Int32Array;
+  private readonly gTerms: Int32Array;
 
   constructor(
     circuit: Circuit,
@@ -263,11 +275,25 @@ class AcEngine implements CompiledAc {
     }
     this.plan = planned.plan;
     this.gSlot = Int32Array.from(keys.map((k) => this.plan.slotOf[k]));
-    this.kernels = generate
-      ? generateLuKernels(
-          this.plan,
-          Array.from(this.gSlot, (slot, g) => ({ weight: g, slot, power: this.gPow[g] })),
-        )
+    const groups = Array.from(this.gSlot, (slot, g) => ({ weight: g, slot, power: this.gPow[g] }));
+    this.kernels = generate ? generateLuKernels(this.plan, groups) : null;
+    const linear = (idx: Int32Array, w: Float64Array) => Array.from(idx, (index, k) => ({ index, weight: w[k] }));
+    this.weightKernel = generate
+      ? generateWeightKernel({
+          coefficient: this.tCoef,
+          factorStart: this.tFactorStart,
+          factorParameter: this.fSlot,
+          factorExponent: this.fExp,
+          groupStart: this.gTermStart,
+          groupTerms: this.gTerms,
+        })
+      : null;
+    this.transferKernel = generate
+      ? generateTransferKernel(this.plan, groups, {
+          rhs: Array.from(this.bRow, (row, i) => ({ row, value: this.bVal[i] })),
+          output: linear(this.outIdx, this.outW),
+          reference: linear(this.refIdx, this.refW),
+        })
       : null;
     this.vr = new Float64Array(this.plan.slotCount);
     this.vi = new Float64Array(this.plan.slotCount);
@@ -298,6 +324,17 @@ class AcEngine implements CompiledAc {
       this.updateTerm(t);
       this.updateGroup(this.tGroup[t]);
     }
+  }
+
+  setParameters(indices: ArrayLike<number>, values: ArrayLike<number>): void {
+    const p = this.parameters;
+    for (let k = 0; k < indices.length; k++) p[indices[k]] = values[k];
+    if (this.weightKernel) {
+      this.weightKernel(p, this.tWeight, this.gWeight);
+      return;
+    }
+    for (let t = 0; t < this.tWeight.length; t++) this.updateTerm(t);
+    for (let g = 0; g < this.gWeight.length; g++) this.updateGroup(g);
   }
 
   getValue(name: string): number {
@@ -430,6 +467,13 @@ class AcEngine implements CompiledAc {
   }
 
   transferAt(frequencyHz: number, out: Float64Array = new Float64Array(2)): Float64Array {
+    if (this.transferKernel) {
+      if (!this.transferKernel(2 * Math.PI * frequencyHz, this.gWeight, out)) {
+        out[0] = NaN;
+        out[1] = NaN;
+      }
+      return out;
+    }
     const ok = this.factorAt(2 * Math.PI * frequencyHz);
     if (!ok) {
       out[0] = NaN;

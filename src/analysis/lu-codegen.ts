@@ -5,6 +5,12 @@
  * interpreted kernels in sparse-lu.ts (the results are bit-for-bit the same); only the index loads and
  * loop control disappear, which is most of the time for the small dense-ish fronts of MNA matrices.
  *
+ * Compiled kernels are kept in a small cache keyed by their source text: every engine compiled for
+ * the same circuit structure (each Monte Carlo run, each worker's setup, each trim step) then calls the
+ * very same function objects, which the JavaScript engine has already optimised, instead of fresh
+ * closures that start in the interpreter and make their call sites polymorphic (measured: a fresh
+ * pair per run cost a worker thread about twice the time per trial of a warm one).
+ *
  * The generated text contains only numeric literals derived from the plan (no user strings). Where
  * `new Function` is unavailable (a Content-Security-Policy without 'unsafe-eval'), or the plan is too
  * large for straight-line code to pay off, {@link generateLuKernels} returns null and the engine keeps
@@ -36,20 +42,53 @@ export interface LuKernels {
 export function generateLuKernels(plan: SparseLuPlan, groups: readonly FillGroup[]): LuKernels | null {
   if (plan.target.length + plan.uSlot.length + plan.lSlot.length > MAX_GENERATED_OPERATIONS) return null;
   try {
-    const fill = fillSource(plan, groups);
-    const factor = factorSource(plan);
-    const fillFactor = new Function('w', 'gw', 'vr', 'vi', 'ir', 'ii', `${fill}\n${factor}`) as LuKernels['fillFactor'];
-    const solve = new Function('vr', 'vi', 'ir', 'ii', 'br', 'bi', 'xr', 'xi', solveSource(plan)) as LuKernels['solve'];
+    const fillFactor = cachedFunction(['w', 'gw', 'vr', 'vi', 'ir', 'ii'], `${fillSource(plan, groups)}\n${factorSource(plan)}`) as LuKernels['fillFactor'];
+    const solve = cachedFunction(['vr', 'vi', 'ir', 'ii', 'br', 'bi', 'xr', 'xi'], solveSource(plan)) as LuKernels['solve'];
     return { fillFactor, solve };
   } catch {
     return null;
   }
 }
 
+/** Compiled kernels by parameter list and body; the oldest is dropped beyond {@link KERNEL_CACHE_SIZE}. */
+const kernelCache = new Map<string, Function>();
+
+/** Kernels kept compiled: a few circuit structures in use at once (design, trim, production) with room to spare. */
+export const KERNEL_CACHE_SIZE = 64;
+
+/**
+ * `new Function(...params, body)`, reused for an identical text. The functions are pure (all state in
+ * their array arguments), so sharing one between engines is safe.
+ */
+export function cachedFunction(params: readonly string[], body: string): Function {
+  const key = `${params.join(',')}\n${body}`;
+  let f = kernelCache.get(key);
+  if (f) {
+    kernelCache.delete(key); // refresh its place: the map keeps insertion order
+  } else {
+    f = new Function(...params, body);
+    if (kernelCache.size >= KERNEL_CACHE_SIZE) kernelCache.delete(kernelCache.keys().next().value!);
+  }
+  kernelCache.set(key, f);
+  return f;
+}
+
 function fillSource(plan: SparseLuPlan, groups: readonly FillGroup[]): string {
+  const { powers, re, im } = fillExpressions(plan, groups);
+  const lines = [...powers];
+  for (let s = 0; s < plan.slotCount; s++) lines.push(`vr[${s}] = ${re[s]};`, `vi[${s}] = ${im[s]};`);
+  return lines.join('\n');
+}
+
+/**
+ * The fill of A(j w) as source text: `powers` declares w1 = w, w2 = w1 * w, ...; `re[s]` and `im[s]`
+ * are the expressions of slot s's parts, the terms added in group order as the interpreted fill adds
+ * them (so the sums round identically).
+ */
+export function fillExpressions(plan: SparseLuPlan, groups: readonly FillGroup[]): { powers: string[]; re: string[]; im: string[] } {
   const maxPow = groups.reduce((m, g) => Math.max(m, g.power), 0);
-  const lines: string[] = ['const w1 = w;'];
-  for (let k = 2; k <= maxPow; k++) lines.push(`const w${k} = w${k - 1} * w;`);
+  const powers: string[] = ['const w1 = w;'];
+  for (let k = 2; k <= maxPow; k++) powers.push(`const w${k} = w${k - 1} * w;`);
   const re = new Map<number, string>();
   const im = new Map<number, string>();
   // the interpreted fill starts from 0 and adds in group order; 0 + x is x, so start from the first term
@@ -61,11 +100,11 @@ function fillSource(plan: SparseLuPlan, groups: readonly FillGroup[]): string {
     const prev = target.get(g.slot);
     target.set(g.slot, prev === undefined ? (sign === '+' ? term : `0 - ${term}`) : `${prev} ${sign} ${term}`);
   }
-  for (let s = 0; s < plan.slotCount; s++) {
-    lines.push(`vr[${s}] = ${re.get(s) ?? '0'};`);
-    lines.push(`vi[${s}] = ${im.get(s) ?? '0'};`);
-  }
-  return lines.join('\n');
+  return {
+    powers,
+    re: Array.from({ length: plan.slotCount }, (_, s) => re.get(s) ?? '0'),
+    im: Array.from({ length: plan.slotCount }, (_, s) => im.get(s) ?? '0'),
+  };
 }
 
 function factorSource(plan: SparseLuPlan): string {

@@ -92,10 +92,10 @@ export function sampleBoards(circuit: Circuit, transfer: TransferSpec, spec: Tol
     nominal,
     values,
     apply(board: number) {
-      for (let i = 0; i < q; i++) engine.setParameter(slots[i], values[board * q + i]);
+      engine.setParameters(slots, values.subarray(board * q, board * q + q));
     },
     restoreNominal() {
-      for (let i = 0; i < q; i++) engine.setParameter(slots[i], nominal[i]);
+      engine.setParameters(slots, nominal);
     },
     valueOf(board: number, parameter: string) {
       const i = index.get(parameter);

@@ -209,6 +209,8 @@ export class TrialModel {
   private readonly limits: MaskLimits | null;
   private readonly h = new Float64Array(2);
   private readonly values: Float64Array;
+  /** This trial's value of each toleranced input, in slot order. */
+  private readonly drawn: Float64Array;
 
   constructor(circuit: Circuit, transfer: TransferSpec, spec: ToleranceSpec, frequencyHz: Float64Array, mask: SpecMask | null) {
     this.tol = resolveTolerances(circuit, spec);
@@ -234,6 +236,7 @@ export class TrialModel {
     }
     this.limits = mask ? maskLimits(mask, frequencyHz) : null;
     this.values = new Float64Array(this.quantityCount);
+    this.drawn = new Float64Array(this.slots.length);
   }
 
   /**
@@ -248,11 +251,13 @@ export class TrialModel {
     if (t) dT = (t.maxC > t.minC ? t.minC + (t.maxC - t.minC) * uniformFloat64(rng) : t.minC) - t.referenceC;
     for (let g = 0; g < groupDelta.length; g++) groupDelta[g] = sampleDeviation(rng, tol.groups[g]);
     const inputs = tol.inputs;
+    const drawn = this.drawn;
     for (let i = 0; i < slots.length; i++) {
       const g = groupOf[i];
       const d = sampleDeviation(rng, inputs[i]) + (g >= 0 ? groupDelta[g] : 0);
-      engine.setParameter(slots[i], nominal[i] * (1 + d) * (1 + tempco[i] * dT)); // spec.ts value model
+      drawn[i] = nominal[i] * (1 + d) * (1 + tempco[i] * dT); // spec.ts value model
     }
+    engine.setParameters(slots, drawn);
     const m = this.frequencyHz.length;
     const h = this.h;
     let ok = true;

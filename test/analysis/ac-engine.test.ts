@@ -176,6 +176,65 @@ describe('engine laws', () => {
     );
   });
 
+  it('the fused transfer kernel (transfer-codegen.ts) gives transferAt bit for bit the interpreted H, by source and by node ratio', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.boolean(), (seed, byNode) => {
+        const { circuit } = randomCircuit(seed, 7);
+        const out = circuit.nodes[circuit.nodes.length - 1];
+        // a node as input: H = V(out)/V(in) with a reference combination (Smith's division in the kernel)
+        const spec = { input: byNode ? circuit.nodes[0] : 'VIN', output: out };
+        const fast = compileAc(circuit, spec);
+        const slow = compileAc(circuit, spec, { generateKernels: false });
+        const h = new Float64Array(2);
+        for (const f of [0.01, 0.1, 0.3, 1, 3, 10]) {
+          fast.transferAt(f, h);
+          const ref = slow.solveAt(f);
+          const g = slow.transferAt(f);
+          // === (not Object.is): a zero may differ in sign only
+          expect(h[0] === g[0] || (Number.isNaN(h[0]) && Number.isNaN(g[0]))).toBe(true);
+          expect(h[1] === g[1] || (Number.isNaN(h[1]) && Number.isNaN(g[1]))).toBe(true);
+          if (Number.isFinite(ref.hRe)) expect(Math.hypot(h[0] - ref.hRe, h[1] - ref.hIm)).toBeLessThanOrEqual(1e-12 * Math.hypot(ref.hRe, ref.hIm));
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+
+  it('setParameters (one generated weight update) leaves the engine bit for bit as setParameter one by one', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.boolean(), (seed, drawSeed, generate) => {
+        const { circuit } = randomCircuit(seed, 7);
+        const spec = { input: 'VIN', output: circuit.nodes[circuit.nodes.length - 1] };
+        const a = compileAc(circuit, spec, { generateKernels: generate });
+        const b = compileAc(circuit, spec, { generateKernels: generate });
+        // a random subset of the parameters, each scaled by a random factor in [0.5, 1.5)
+        let x = drawSeed;
+        const next = () => ((x = (Math.imul(x, 1103515245) + 12345) >>> 0) / 2 ** 32);
+        const idx = a.parameterNames.map((_, i) => i).filter(() => next() < 0.6);
+        const vals = Float64Array.from(idx, (i) => a.parameters[i] * (0.5 + next()));
+        a.setParameters(Int32Array.from(idx), vals);
+        idx.forEach((i, k) => b.setParameter(i, vals[k]));
+        for (const f of [0.05, 0.5, 5]) {
+          const ha = a.transferAt(f);
+          const hb = b.transferAt(f);
+          expect(Object.is(ha[0], hb[0]) && Object.is(ha[1], hb[1])).toBe(true);
+          const sa = a.solveAt(f);
+          const sb = b.solveAt(f);
+          for (let i = 0; i < sa.re.length; i++) expect(Object.is(sa.re[i], sb.re[i]) && Object.is(sa.im[i], sb.im[i])).toBe(true);
+        }
+        // and a later single change still starts from consistent cached weights
+        if (idx.length > 0) {
+          a.setParameter(idx[0], vals[0] * 1.25);
+          b.setParameter(idx[0], vals[0] * 1.25);
+          const ha = a.transferAt(0.5);
+          const hb = b.transferAt(0.5);
+          expect(Object.is(ha[0], hb[0]) && Object.is(ha[1], hb[1])).toBe(true);
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+
   it('setValue then solving equals compiling the changed circuit; setOpampModel likewise', () => {
     const build = (r2: number, gbw: number) =>
       new Circuit()
