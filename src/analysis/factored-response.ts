@@ -12,6 +12,8 @@
  * down, each with the nearest remaining zero group (the rule of scipy.signal.zpk2sos).
  */
 import { Fraction, fractionToNumber, polynomialRoots, divideParts as cdiv, type Complex, type RationalFunction } from '../algebra/index';
+import { InvalidInputError } from '../errors';
+import { sweepKernelFor, type SweepKernel } from './factored-sweep';
 
 /** num(s)/den(s) = (n2 s^2 + n1 s + n0) / (d2 s^2 + d1 s + d0), real coefficients. */
 export interface AnalogSection {
@@ -26,7 +28,10 @@ export interface AnalogSection {
 export interface FactoredSweep {
   readonly frequencyHz: Float64Array;
   readonly gainDb: Float64Array;
-  /** Unwrapped along the sweep, in the order the frequencies were given. */
+  /**
+   * Unwrapped along the sweep, in the order the frequencies were given: each step is the principal
+   * angle between neighbouring points (factored-sweep.ts).
+   */
   readonly phaseDeg: Float64Array;
   /** Exact derivative, section by section; NaN-free only away from zeros on the j w axis. */
   readonly groupDelayS: Float64Array;
@@ -44,6 +49,11 @@ export interface FloatTransferFunction {
   evaluate(s: Complex): Complex;
   /** Gain, phase and group delay at the frequencies (Hz); `groupDelay: false` skips the delay (faster). */
   sweep(frequenciesHz: ArrayLike<number>, options?: { readonly groupDelay?: boolean }): FactoredSweep;
+  /**
+   * The same into caller-owned arrays of the frequencies' length (no allocation: repeated sweeps of
+   * a plot or a tuning loop); the group delay only when `groupDelayS` is given.
+   */
+  sweepInto(frequencyHz: Float64Array, gainDb: Float64Array, phaseDeg: Float64Array, groupDelayS?: Float64Array): void;
 }
 
 /**
@@ -165,9 +175,9 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     return { re, im };
   };
 
-  // The sweep evaluates numerator and denominator factors apart (one complex division per point);
-  // factors equal to 1 are dropped and numerator factors with no s term (zeros on the j w axis) are
-  // real at s = j w, so they cost two multiplications.
+  // The sweep evaluates numerator and denominator factors apart (factored-sweep.ts); factors equal to
+  // 1 are dropped and numerator factors with no s term (zeros on the j w axis) are real at s = j w,
+  // so they cost two multiplications.
   const cplxNum: number[] = [];
   const realNum: number[] = [];
   const dens: number[] = [];
@@ -176,105 +186,40 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     else if (q.n2 !== 0 || q.n0 !== 1) realNum.push(q.n0, q.n2);
     if (q.d1 !== 0 || q.d2 !== 0 || q.d0 !== 1) dens.push(q.d0, q.d1, q.d2);
   }
-  const cn = Float64Array.from(cplxNum);
-  const rn = Float64Array.from(realNum);
-  const dn = Float64Array.from(dens);
+  let kernel: SweepKernel | null = null; // generated on the first sweep
+  const kernelOf = () =>
+    (kernel ??= sweepKernelFor({ gain: sectionGain, realNumerator: Float64Array.from(realNum), complexNumerator: Float64Array.from(cplxNum), denominator: Float64Array.from(dens) }));
   const sweep = (frequenciesHz: ArrayLike<number>, options: { readonly groupDelay?: boolean } = {}): FactoredSweep => {
     const m = frequenciesHz.length;
-    const frequencyHz = Float64Array.from(frequenciesHz);
+    const frequencyHz = new Float64Array(m);
+    for (let i = 0; i < m; i++) frequencyHz[i] = frequenciesHz[i];
     const gainDb = new Float64Array(m);
     const phaseDeg = new Float64Array(m);
     const groupDelayS = new Float64Array(m);
-    const withDelay = options.groupDelay ?? true;
-    sweepKernel(sectionGain, rn, cn, dn, frequencyHz, gainDb, phaseDeg, groupDelayS, withDelay);
+    kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS, options.groupDelay ?? true);
     return { frequencyHz, gainDb, phaseDeg, groupDelayS };
   };
+  const sweepInto = (frequencyHz: Float64Array, gainDb: Float64Array, phaseDeg: Float64Array, groupDelayS?: Float64Array): void => {
+    const m = frequencyHz.length;
+    const check = (a: Float64Array | undefined, name: string) => {
+      if (a !== undefined && (!(a instanceof Float64Array) || a.length !== m)) throw new InvalidInputError('INVALID_ARGUMENT', name, a, `must be a Float64Array of the frequencies' length (${m})`);
+    };
+    if (!(frequencyHz instanceof Float64Array)) throw new InvalidInputError('INVALID_ARGUMENT', 'frequencyHz', frequencyHz, 'must be a Float64Array');
+    check(gainDb, 'gainDb');
+    check(phaseDeg, 'phaseDeg');
+    check(groupDelayS, 'groupDelayS');
+    kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS ?? scratchFor(m), groupDelayS !== undefined);
+  };
 
-  return { zeros, poles, gain, sections, sectionGain, evaluate, sweep };
+  return { zeros, poles, gain, sections, sectionGain, evaluate, sweep, sweepInto };
 }
 
-/** The sweep loop, on plain arguments so every array is a local of the hot loop. */
-function sweepKernel(
-  g: number,
-  rn: Float64Array,
-  cn: Float64Array,
-  dn: Float64Array,
-  frequencyHz: Float64Array,
-  gainDb: Float64Array,
-  phaseDeg: Float64Array,
-  groupDelayS: Float64Array,
-  withDelay: boolean,
-): void {
-  const m = frequencyHz.length;
-  let prev = 0;
-  let offset = 0;
-  for (let p = 0; p < m; p++) {
-    const w = TWO_PI * frequencyHz[p];
-    const w2 = w * w;
-    let nr = g;
-    let ni = 0;
-    for (let o = 0; o < rn.length; o += 2) {
-      const x = rn[o] - rn[o + 1] * w2;
-      nr *= x;
-      ni *= x;
-    }
-    for (let o = 0; o < cn.length; o += 3) {
-      const x = cn[o] - cn[o + 2] * w2;
-      const y = cn[o + 1] * w;
-      const t = nr * x - ni * y;
-      ni = nr * y + ni * x;
-      nr = t;
-    }
-    let dr = 1;
-    let di = 0;
-    for (let o = 0; o < dn.length; o += 3) {
-      const x = dn[o] - dn[o + 2] * w2;
-      const y = dn[o + 1] * w;
-      const t = dr * x - di * y;
-      di = dr * y + di * x;
-      dr = t;
-    }
-    // |H|^2 = |N|^2 / |D|^2 and arg H = arg(N conj D): no complex division is needed. The unit-scaled
-    // factors keep |N|^2 and |D|^2 far inside the double range for any realistic degree and band.
-    const pr = nr * dr + ni * di;
-    const pi = ni * dr - nr * di;
-    gainDb[p] = DB_PER_NEPER_POWER * Math.log((nr * nr + ni * ni) / (dr * dr + di * di)); // 10 log10 |H|^2 via ln (cheaper)
-    // arg H up to a multiple of 2 pi (the unwrapping removes it): atan(y/x), plus pi for x < 0;
-    // atan of the ratio costs about half of atan2, and x = 0 gives atan(+-Infinity) = +-pi/2
-    let raw = pr === 0 && pi === 0 ? 0 : Math.atan(pi / pr) + (pr < 0 ? Math.PI : 0);
-    if (p === 0) {
-      if (raw > Math.PI) raw -= TWO_PI; // start on the principal value
-    } else {
-      const jump = raw + offset - prev;
-      if (jump > Math.PI || jump < -Math.PI) offset -= TWO_PI * Math.round(jump / TWO_PI);
-    }
-    prev = raw + offset;
-    phaseDeg[p] = prev * DEG_PER_RAD;
-    if (withDelay) {
-      // tau = -d arg H/dw = sum over factors of -+ d/dw arg(x + j y) = (x y' - y x')/(x^2 + y^2),
-      // with x = c0 - c2 w^2, y = c1 w: x' = -2 c2 w, y' = c1
-      let tau = 0;
-      for (let o = 0; o < dn.length; o += 3) {
-        const x = dn[o] - dn[o + 2] * w2;
-        const y = dn[o + 1] * w;
-        tau += (x * dn[o + 1] + y * 2 * dn[o + 2] * w) / (x * x + y * y);
-      }
-      for (let o = 0; o < cn.length; o += 3) {
-        const x = cn[o] - cn[o + 2] * w2;
-        const y = cn[o + 1] * w;
-        tau -= (x * cn[o + 1] + y * 2 * cn[o + 2] * w) / (x * x + y * y);
-      }
-      groupDelayS[p] = tau; // real numerator factors have constant phase (0 or pi) between their zeros
-    } else {
-      groupDelayS[p] = NaN;
-    }
-  }
+/** A reused scratch array for the kernel's (unused) delay output. */
+let scratch = new Float64Array(0);
+function scratchFor(m: number): Float64Array {
+  if (scratch.length < m) scratch = new Float64Array(m);
+  return scratch.length === m ? scratch : scratch.subarray(0, m);
 }
-
-const TWO_PI = 2 * Math.PI;
-const DEG_PER_RAD = 180 / Math.PI;
-/** 10 / ln 10: dB of a power ratio from its natural logarithm. */
-const DB_PER_NEPER_POWER = 10 / Math.LN10;
 
 interface Group {
   readonly roots: readonly Complex[]; // one real root, two real roots, or a conjugate pair (im < 0 first)

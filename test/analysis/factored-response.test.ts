@@ -8,6 +8,8 @@ import { fractionFromDouble, fractionToNumber, Poly, RationalFunction } from '..
 import { Circuit } from '../../src/netlist/index';
 import { evaluateFactored, toFloatFactored, toFloatTransferFunction, transferFunction } from '../../src/analysis/index';
 import { capacitor, gicSubcircuit, resistor } from './random-circuits';
+import { InvalidInputError } from '../../src/errors';
+import { expectThrows } from '../helpers/expect-error';
 
 function exactAt(h: RationalFunction, omega: number): { re: number; im: number } {
   const v = h.evaluateGaussian({ re: 0, im: fractionFromDouble(omega) });
@@ -108,6 +110,23 @@ describe('toFloatTransferFunction', () => {
       const d2 = dr * dr + di * di;
       expect(Math.hypot((nr * dr + ni * di) / d2 - e.re, (ni * dr - nr * di) / d2 - e.im)).toBeLessThan(1e-12 * mag);
     });
+  });
+
+  it('sweepInto writes what sweep returns, bit for bit, into caller arrays; wrong arrays are refused by name', () => {
+    const f = toFloatTransferFunction(ladder());
+    const freqs = Float64Array.from({ length: 257 }, (_, i) => 10 ** (-3 + (3 * i) / 256));
+    const ref = f.sweep(freqs);
+    const g = new Float64Array(257);
+    const p = new Float64Array(257);
+    const d = new Float64Array(257);
+    f.sweepInto(freqs, g, p, d);
+    for (let i = 0; i < 257; i++) expect(Object.is(g[i], ref.gainDb[i]) && Object.is(p[i], ref.phaseDeg[i]) && Object.is(d[i], ref.groupDelayS[i])).toBe(true);
+    const g2 = new Float64Array(257);
+    f.sweepInto(freqs, g2, p);
+    expect(Array.from(g2)).toEqual(Array.from(ref.gainDb));
+    expectThrows(() => f.sweepInto(freqs, new Float64Array(3), p), InvalidInputError, 'INVALID_ARGUMENT', 'gainDb');
+    expectThrows(() => f.sweepInto(freqs, g, p, new Float64Array(1)), InvalidInputError, 'INVALID_ARGUMENT', 'groupDelayS');
+    expectThrows(() => f.sweepInto([1, 2] as unknown as Float64Array, g, p), InvalidInputError, 'INVALID_ARGUMENT', 'frequencyHz');
   });
 
   it('a constant and the zero function', () => {
