@@ -5,7 +5,8 @@
  * - a 10,000-point sweep of H(j w) in factored form, analysis/factored-response.ts (target <= 0.5 ms);
  * - a full solve (every node voltage) at one frequency after changing a value (target <= 1.5 us).
  * Each figure: warm-up runs, then repetitions, the median taken; the whole set repeated in 7 rounds,
- * each opened by a fixed machine check loop, and the quickest and the median round reported (on a
+ * each opened by a fixed machine check loop (the exact transfer function is timed after all rounds:
+ * its big-integer garbage slowed the float timings after it), and the quickest and the median round reported (on a
  * shared machine the speed drifts between rounds; the quickest is the code's cost with the least
  * interference, the usual reading of repeated timings). Run: npx tsx bench/engine.ts
  * Writes bench/results-engine.json and prints a Markdown table.
@@ -15,6 +16,7 @@ import { availableParallelism, loadavg } from 'node:os';
 import { fdnrLadder7 } from '../test/helpers/gic-circuits';
 import { compileAc, transferFunction } from '../src/analysis/index';
 import { toFloatTransferFunction } from '../src/analysis/factored-response';
+import { machineCheckMs } from './machine-check';
 
 const MODEL = { model: 'single-pole', gainBandwidthHz: 1e6, openLoopGainDb: 100 } as const;
 const SWEEP_POINTS = 10_000;
@@ -34,20 +36,6 @@ function timeMs(f: () => void, warmup: number, samples: number, inner = 1): numb
     t.push((performance.now() - t0) / inner);
   }
   return median(t);
-}
-
-/**
- * A fixed scalar loop (2e7 square roots and multiply-adds), timed at the start of every round: it does
- * the same work every time, so when it is slow the machine was busy (on a shared VM its time varies
- * several-fold from minute to minute) and the round's figures are inflated alike.
- */
-function machineCheckMs(): number {
-  const t0 = performance.now();
-  let s = 0;
-  for (let i = 0; i < 2e7; i++) s += Math.sqrt(i) * 1.0000001;
-  const t = performance.now() - t0;
-  if (s < 0) console.log(s); // keeps the loop from being removed
-  return t;
 }
 
 const ROUNDS = 7;
@@ -91,7 +79,7 @@ for (let r = 0; r < ROUNDS; r++) {
   const check = machineCheckMs();
   rounds.push({
     machineCheckMs: check,
-    exactMs: timeMs(() => transferFunction(circuit, spec), 1, 5),
+    exactMs: NaN, // below, after every round: its garbage (big integers) would slow the float rounds' timings
     sweepIntoMs: timeMs(() => factored.sweepInto(frequencies, gainOut, phaseOut), 50, 31, 5),
     sweepMs: timeMs(() => factored.sweep(frequencies, { groupDelay: false }), 20, 31, 5),
     sweepWithDelayMs: timeMs(() => factored.sweepInto(frequencies, gainOut, phaseOut, delayOut), 20, 21, 2),
@@ -121,6 +109,7 @@ for (let r = 0; r < ROUNDS; r++) {
       ),
   });
 }
+for (const r of rounds) r.exactMs = timeMs(() => transferFunction(circuit, spec), 1, 5);
 const best = (k: keyof Round) => Math.min(...rounds.map((x) => x[k]));
 const typical = (k: keyof Round) => median(rounds.map((x) => x[k]));
 

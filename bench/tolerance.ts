@@ -16,6 +16,7 @@ import { availableParallelism, loadavg } from 'node:os';
 import { fdnrLadder7 } from '../test/helpers/gic-circuits';
 import { runMonteCarlo, type MonteCarloResult } from '../src/tolerance/monte-carlo';
 import type { ToleranceSpec } from '../src/tolerance/spec';
+import { machineCheckMs } from './machine-check';
 
 /**
  * tsx resolves an extensionless './x.node' as the file 'x.node' (a native-addon name) and does not try
@@ -46,6 +47,7 @@ const json = (r: MonteCarloResult) => JSON.stringify(r, (_k, v) => (ArrayBuffer.
 // warm-up (JIT) on a small run
 runMonteCarlo(circuit, transfer, spec, { ...options, trials: 5000 });
 
+const checkBeforeMs = machineCheckMs();
 let t0 = performance.now();
 const serialCpu0 = process.cpuUsage();
 const serial = runMonteCarlo(circuit, transfer, spec, options);
@@ -77,13 +79,14 @@ clearInterval(sampler);
 peakRss = Math.max(peakRss, process.memoryUsage().rss);
 const peakRssMb = peakRss / 2 ** 20;
 
+const checkAfterMs = machineCheckMs();
 const serialUsPerTrial = (serialS / TRIALS) * 1e6;
 const parallelUsPerTrial = (parallelS / TRIALS) * 1e6;
 const results = {
   circuit: { description: '7th-order Butterworth FDNR ladder, 1 kHz, 3 GIC FDNRs, single-pole op-amps (1 MHz, 100 dB)', nodes: circuit.nodes.length, opamps: 6, tolerancedInputs: spec.parts.length + spec.opamps!.length },
   frequencies: FREQUENCIES,
   node: process.version,
-  machine: { cpus: availableParallelism(), loadAverage1m: loadavg()[0] },
+  machine: { cpus: availableParallelism(), loadAverage1m: loadavg()[0], machineCheckMs: { before: checkBeforeMs, after: checkAfterMs } },
   serial100k: { seconds: serialS, usPerTrial: serialUsPerTrial, cpuSeconds: serialCpuS },
   parallel100k: { workers: WORKERS, seconds: parallelS, usPerTrial: parallelUsPerTrial, target: 2, identicalToSerial: identical, coldSecondsWithWorkerStartup: coldS, cpuSecondsAllThreads: parallelCpuS, cpuShareOfTwoCores: parallelCpuS / (2 * parallelS) },
   parallel1M: { workers: WORKERS, seconds: bigS, peakRssMb, targetRssMb: 300, quantileMethod: big.quantileMethod },
@@ -105,5 +108,7 @@ console.log(
     row('parallel results byte-identical to serial', String(identical), 'true', identical),
     row(`10^6 trials, ${WORKERS} workers: peak resident set`, `${peakRssMb.toFixed(0)} MB (${bigS.toFixed(1)} s)`, '<= 300 MB', peakRssMb <= 300),
     row('speed-up over 0.6 ms/trial', `${results.speedupOverSimulator.factor.toFixed(0)} x`, '>= 30 x', results.speedupOverSimulator.factor >= 30),
+    '',
+    `machine check (bench/machine-check.ts, about 40-50 ms when idle): ${checkBeforeMs.toFixed(0)} ms before, ${checkAfterMs.toFixed(0)} ms after`,
   ].join('\n'),
 );
