@@ -15,7 +15,7 @@ import { circuitToSpice } from '../src/export/spice';
 import { compileAc, type CompiledAc } from '../src/analysis/ac-engine';
 import type { FloatTransferFunction } from '../src/analysis/factored-response';
 import type { Circuit } from '../src/netlist/circuit';
-import { sampleDeviation } from '../src/tolerance/distributions';
+import { TrialDraw } from '../src/tolerance/trial-draw';
 import { BlockStreams, DEFAULT_BLOCK_SIZE } from '../src/tolerance/random';
 import type { MonteCarloResult } from '../src/tolerance/monte-carlo';
 import { resolveTolerances, type ToleranceSpec } from '../src/tolerance/spec';
@@ -126,24 +126,21 @@ export function benchToleranceSpec(circuit: Circuit): ToleranceSpec {
 
 /**
  * The boards gicladder's runMonteCarlo (tolerance/monte-carlo.ts) simulates for this spec and seed,
- * drawn the way its TrialModel.trial draws them: block b's generator from BlockStreams, per trial one
- * deviation per input in spec order, value = nominal (1 + d). Valid for specs without temperature,
- * groups or op-amp tolerances (what {@link benchToleranceSpec} gives); the harness test checks that
- * runMonteCarlo's statistics equal those of these boards.
+ * drawn with the same TrialDraw (tolerance/trial-draw.ts) from block b's generator of BlockStreams.
+ * Valid for part tolerances (the alter cards set element values; op-amp gain-bandwidth tolerances are
+ * refused); the harness test checks that runMonteCarlo's statistics equal those of these boards.
  */
 export function drawMonteCarloBoards(circuit: Circuit, spec: ToleranceSpec, trials: number, seed: number, blockSize = DEFAULT_BLOCK_SIZE): MonteCarloBoards {
   const tol = resolveTolerances(circuit, spec);
-  if (tol.temperature || tol.groups.length > 0 || tol.inputs.some((i) => i.parameter !== i.name)) throw new Error('drawMonteCarloBoards: only independent part tolerances are replicated');
+  if (tol.inputs.some((i) => i.parameter !== i.name)) throw new Error('drawMonteCarloBoards: only part tolerances are replayed (alter cards set element values)');
   const engine = compileAc(circuit, TRANSFER);
-  const nominal = tol.inputs.map((i) => engine.parameters[engine.parameterIndex(i.parameter)]);
+  const draws = new TrialDraw(tol, Float64Array.from(tol.inputs, (i) => engine.parameters[engine.parameterIndex(i.parameter)]));
   const streams = new BlockStreams(seed);
   const p = tol.inputs.length;
   const values = new Float64Array(trials * p);
   for (let block = 0; block * blockSize < trials; block++) {
     const rng = streams.generatorFor(block);
-    for (let t = block * blockSize; t < Math.min(trials, (block + 1) * blockSize); t++) {
-      for (let k = 0; k < p; k++) values[t * p + k] = nominal[k] * (1 + sampleDeviation(rng, tol.inputs[k]));
-    }
+    for (let t = block * blockSize; t < Math.min(trials, (block + 1) * blockSize); t++) draws.draw(rng, values, t * p);
   }
   return { names: tol.inputs.map((i) => i.parameter), trials, values };
 }

@@ -11,7 +11,7 @@
  * - gicladder "engine": CompiledAc.sweep with every node voltage, gain, unwrapped phase and exact group
  *   delay, i.e. a fill + sparse LU + two substitutions of the full MNA system per point (in-process, the
  *   compiled engine reused; compilation reported apart);
- * - gicladder "factored": FloatTransferFunction.sweep (gain, phase) of the exact H in second-order
+ * - gicladder "factored": FloatTransferFunction.sweepInto (gain, phase into caller arrays) of the exact H in second-order
  *   sections; building it is the "exact transfer function" and "factored form" rows;
  * - ngspice "process": the whole `ngspice -b` process: start-up, parsing and expanding the netlist, the
  *   analysis and writing V(out) as text (bash's `time`: real, and user + system);
@@ -90,18 +90,22 @@ interface Times {
 
 const scale = (t: Times, k: number): Times => ({ wallMs: t.wallMs * k, cpuMs: t.cpuMs * k });
 
-/** Medians (each clock apart) of `samples` calls of f after `warmup` untimed calls. CPU: process.cpuUsage, all threads. */
-function timeIt(f: () => void, warmup = GICLADDER_WARMUP, samples = GICLADDER_REPEATS): Times {
+/**
+ * Medians (each clock apart) of `samples` samples of f after `warmup` untimed calls, per call; a
+ * sample times `inner` calls (for sub-millisecond work, where one call is near the clocks' resolution
+ * and a single collection skews it). CPU: process.cpuUsage, all threads.
+ */
+function timeIt(f: () => void, warmup = GICLADDER_WARMUP, samples = GICLADDER_REPEATS, inner = 1): Times {
   for (let i = 0; i < warmup; i++) f();
   const wall: number[] = [];
   const cpu: number[] = [];
   for (let k = 0; k < samples; k++) {
     const c0 = process.cpuUsage();
     const t0 = performance.now();
-    f();
-    wall.push(performance.now() - t0);
+    for (let i = 0; i < inner; i++) f();
+    wall.push((performance.now() - t0) / inner);
     const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
+    cpu.push((c.user + c.system) / 1000 / inner);
   }
   return { wallMs: median(wall), cpuMs: median(cpu) };
 }
@@ -153,9 +157,13 @@ function benchSweeps(bc: BenchCircuit, rows: Row[]): void {
     const what = `${s.inProcessRuns} sweeps in one process: wall = acTime / ${s.inProcessRuns}, CPU = (process - idle process) / ${s.inProcessRuns}`;
     const work = `${s.label} (${points.length} points)`;
     const engineTimes = timeIt(() => engine.sweep(frequencies, { nodes: 'all' }));
-    const factoredTimes = timeIt(() => factored.sweep(frequencies, { groupDelay: false }));
+    // into caller arrays (sweepInto): the allocating sweep() adds collections of this process's large
+    // heap (every node's voltages of the engine sweeps) that have nothing to do with the sweep
+    const gainOut = new Float64Array(frequencies.length);
+    const phaseOut = new Float64Array(frequencies.length);
+    const factoredTimes = timeIt(() => factored.sweepInto(frequencies, gainOut, phaseOut), 5 * GICLADDER_WARMUP, GICLADDER_REPEATS, 20);
     rows.push({ circuit: bc.id, work, gicladder: 'engine: full MNA solve per point; all node voltages, gain, phase, group delay', gicladderTimes: engineTimes, ngspiceProcess: processTimes, ngspiceInProcess: inProcess, ngspiceInProcessIs: what, difference: compareEngine(engine, points) });
-    rows.push({ circuit: bc.id, work, gicladder: 'factored exact H (sections): gain, phase', gicladderTimes: factoredTimes, ngspiceProcess: processTimes, ngspiceInProcess: inProcess, ngspiceInProcessIs: what, difference: compareFactored(factored, points) });
+    rows.push({ circuit: bc.id, work, gicladder: 'factored exact H (sections): gain, phase into caller arrays (sweepInto)', gicladderTimes: factoredTimes, ngspiceProcess: processTimes, ngspiceInProcess: inProcess, ngspiceInProcessIs: what, difference: compareFactored(factored, points) });
   }
 }
 

@@ -6,18 +6,17 @@
  * tolerance specification, seed and block size: the same random streams (tolerance/random.ts
  * BlockStreams, one per block of trials), the same value model (tolerance/spec.ts: value = nominal *
  * (1 + delta_group + delta_part) * (1 + alpha (T - T_ref))) and the same draw order within a trial
- * (temperature, group offsets, then the inputs in specification order; see TrialModel.trial). A test
+ * (temperature, group offsets, then the inputs in specification order): tolerance/trial-draw.ts. A test
  * checks that the gain statistics agree with runMonteCarlo's. runMonteCarlo does not keep the trials'
  * values (it streams statistics), hence this sampler.
  *
  * Memory: trials x toleranced inputs doubles (10^4 boards x 40 inputs = 3.2 MB).
  */
-import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { requireInteger } from '../errors';
 import { compileAc, type CompiledAc, type TransferSpec } from '../analysis/index';
 import type { Circuit } from '../netlist/index';
 import { resolveTolerances, type ToleranceSpec } from '../tolerance/spec';
-import { sampleDeviation } from '../tolerance/distributions';
+import { TrialDraw } from '../tolerance/trial-draw';
 import { BlockStreams, DEFAULT_BLOCK_SIZE } from '../tolerance/random';
 
 export interface BoardSampleOptions {
@@ -64,23 +63,12 @@ export function sampleBoards(circuit: Circuit, transfer: TransferSpec, spec: Tol
   const nominal = Float64Array.from(slots, (s) => engine.parameters[s]);
   const q = slots.length;
   const values = new Float64Array(trials * q);
-  const groupDelta = new Float64Array(tol.groups.length);
+  const draws = new TrialDraw(tol, nominal); // runMonteCarlo's draw order and value model
   const streams = new BlockStreams(seed);
-  const t = tol.temperature;
   for (let block = 0; block * blockSize < trials; block++) {
     const rng = streams.generatorFor(block);
     const end = Math.min(trials, (block + 1) * blockSize);
-    for (let b = block * blockSize; b < end; b++) {
-      // The draw order of tolerance/monte-carlo.ts TrialModel.trial: temperature, groups, inputs.
-      let dT = 0;
-      if (t) dT = (t.maxC > t.minC ? t.minC + (t.maxC - t.minC) * uniformFloat64(rng) : t.minC) - t.referenceC;
-      for (let g = 0; g < groupDelta.length; g++) groupDelta[g] = sampleDeviation(rng, tol.groups[g]);
-      for (let i = 0; i < q; i++) {
-        const inp = tol.inputs[i];
-        const d = sampleDeviation(rng, inp) + (inp.group >= 0 ? groupDelta[inp.group] : 0);
-        values[b * q + i] = nominal[i] * (1 + d) * (1 + inp.tempcoPerK * dT); // tolerance/spec.ts value model
-      }
-    }
+    for (let b = block * blockSize; b < end; b++) draws.draw(rng, values, b * q);
   }
   const index = new Map(parameters.map((p, i) => [p, i]));
   return {

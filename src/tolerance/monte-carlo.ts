@@ -20,9 +20,8 @@ import { InvalidInputError, requireFinite, requireInteger } from '../errors';
 import { compileAc, type CompiledAc, type TransferSpec } from '../analysis/index';
 import type { Circuit } from '../netlist/index';
 import type { RandomGenerator } from 'pure-rand/types/RandomGenerator';
-import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
-import { resolveTolerances, type ResolvedTolerances, type ToleranceSpec } from './spec';
-import { sampleDeviation } from './distributions';
+import { resolveTolerances, type ToleranceSpec } from './spec';
+import { TrialDraw } from './trial-draw';
 import { BlockStreams, DEFAULT_BLOCK_SIZE } from './random';
 import {
   addHistogram,
@@ -197,12 +196,9 @@ export class TrialModel {
   readonly nominalGainDb: Float64Array;
   readonly nominalPhaseDeg: Float64Array;
   private readonly engine: CompiledAc;
-  private readonly tol: ResolvedTolerances;
+  /** The draw order and value model of a trial (trial-draw.ts). */
+  private readonly draws: TrialDraw;
   private readonly slots: Int32Array;
-  private readonly nominal: Float64Array;
-  private readonly tempco: Float64Array;
-  private readonly groupOf: Int32Array;
-  private readonly groupDelta: Float64Array;
   private readonly frequencyHz: Float64Array;
   private readonly h0Re: Float64Array;
   private readonly h0Im: Float64Array;
@@ -213,14 +209,11 @@ export class TrialModel {
   private readonly drawn: Float64Array;
 
   constructor(circuit: Circuit, transfer: TransferSpec, spec: ToleranceSpec, frequencyHz: Float64Array, mask: SpecMask | null) {
-    this.tol = resolveTolerances(circuit, spec);
+    const tol = resolveTolerances(circuit, spec);
     this.engine = compileAc(circuit, transfer);
     const e = this.engine;
-    this.slots = Int32Array.from(this.tol.inputs.map((i) => e.parameterIndex(i.parameter)));
-    this.nominal = Float64Array.from(this.slots, (s) => e.parameters[s]);
-    this.tempco = Float64Array.from(this.tol.inputs.map((i) => i.tempcoPerK));
-    this.groupOf = Int32Array.from(this.tol.inputs.map((i) => i.group));
-    this.groupDelta = new Float64Array(this.tol.groups.length);
+    this.slots = Int32Array.from(tol.inputs.map((i) => e.parameterIndex(i.parameter)));
+    this.draws = new TrialDraw(tol, Float64Array.from(this.slots, (s) => e.parameters[s]));
     this.frequencyHz = frequencyHz;
     const m = frequencyHz.length;
     this.quantityCount = 2 * m;
@@ -245,18 +238,8 @@ export class TrialModel {
    * finite somewhere. No allocation.
    */
   trial(rng: RandomGenerator, out: Float64Array): boolean {
-    const { tol, engine, slots, nominal, tempco, groupOf, groupDelta } = this;
-    const t = tol.temperature;
-    let dT = 0;
-    if (t) dT = (t.maxC > t.minC ? t.minC + (t.maxC - t.minC) * uniformFloat64(rng) : t.minC) - t.referenceC;
-    for (let g = 0; g < groupDelta.length; g++) groupDelta[g] = sampleDeviation(rng, tol.groups[g]);
-    const inputs = tol.inputs;
-    const drawn = this.drawn;
-    for (let i = 0; i < slots.length; i++) {
-      const g = groupOf[i];
-      const d = sampleDeviation(rng, inputs[i]) + (g >= 0 ? groupDelta[g] : 0);
-      drawn[i] = nominal[i] * (1 + d) * (1 + tempco[i] * dT); // spec.ts value model
-    }
+    const { engine, slots, drawn } = this;
+    this.draws.draw(rng, drawn);
     engine.setParameters(slots, drawn);
     const m = this.frequencyHz.length;
     const h = this.h;
