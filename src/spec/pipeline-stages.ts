@@ -58,6 +58,65 @@ export function chooseOrder(spec: DesignSpec): OrderChoice {
   return { order: estimate.order, estimate, passbandEdgeHz: estimate.passbandEdgeHz };
 }
 
+/** Log-spaced samples per decade of the stopband check (a step of 0.06 %: minima found to micro-dB). */
+const STOPBAND_SAMPLES_PER_DECADE = 4000;
+/** Decades above the stopband edge the check covers (beyond, every realisable prototype only falls). */
+const STOPBAND_DECADES = 3;
+
+/**
+ * The least attenuation (dB below 0 dB, the passband maximum of the prototypes here) of a lowpass
+ * prototype from `stopbandEdgeRadPerS` up: log-spaced samples over three decades and the edge itself.
+ * Samples only overestimate a minimum, so a negative margin against it is real.
+ */
+export function worstStopbandAttenuationDb(prototype: Zpk, stopbandEdgeRadPerS: number): number {
+  let worst = -gainDbAt(prototype, stopbandEdgeRadPerS);
+  const n = STOPBAND_SAMPLES_PER_DECADE * STOPBAND_DECADES;
+  for (let i = 1; i <= n; i++) worst = Math.min(worst, -gainDbAt(prototype, stopbandEdgeRadPerS * 10 ** (i / STOPBAND_SAMPLES_PER_DECADE)));
+  return worst;
+}
+
+/** Worse than this against the mask, a realised prototype's stopband counts as missing it (sampling and rounding are far smaller). */
+const STOPBAND_TOLERANCE_DB = 1e-6;
+
+export interface VerifiedOrder {
+  readonly order: OrderChoice;
+  readonly ladder: LadderSynthesis & { prototype: Zpk };
+  /** Set when the estimated order's realised (modified) prototype missed the stopband and order + 1 is used. */
+  readonly raisedFrom?: { readonly order: number; readonly worstAttenuationDb: number };
+  /** The realised prototype's least stopband attenuation minus the mask's, dB (estimated orders whose ladder realises a modified prototype). */
+  readonly realizedMarginDb?: number;
+}
+
+/**
+ * Synthesises the chosen order and, for an estimated order, checks the prototype the ladder really
+ * realises. The estimate is computed on the unmodified prototype; an even-order elliptic ladder with
+ * equal terminations realises a modified response whose stopband begins higher (for order 4, 0.5 dB
+ * ripple and 40 dB: at 1.85 instead of 1.63 rad/s), so a mask the estimate just meets can be missed by
+ * ten dB or more. Then the next order (odd, unmodified, which meets it) is used.
+ */
+export function synthesiseVerified(spec: DesignSpec, choice: OrderChoice): VerifiedOrder {
+  const ladder = synthesise(spec, choice.order);
+  const estimate = choice.estimate;
+  // the estimate holds for the prototype itself; only a ladder that realises another one needs the check
+  if (!estimate || sameZpk(realizedZpk(ladder), ladder.prototype)) return { order: choice, ladder };
+  const asked = spec.response.stopbandAttenuationDb!;
+  const margin = (l: LadderSynthesis & { prototype: Zpk }) =>
+    worstStopbandAttenuationDb(realizedZpk(l), estimate.selectivity * prototypeEdgeRadPerS(spec, l.prototype)) - asked;
+  const first = margin(ladder);
+  if (first >= -STOPBAND_TOLERANCE_DB || choice.order >= MAX_ESTIMATED_ORDER) return { order: choice, ladder, realizedMarginDb: first };
+  const raised = { ...choice, order: choice.order + 1 };
+  const next = synthesise(spec, raised.order);
+  return { order: raised, ladder: next, raisedFrom: { order: choice.order, worstAttenuationDb: first + asked }, realizedMarginDb: margin(next) };
+}
+
+function sameZpk(a: Zpk, b: Zpk): boolean {
+  const same = (x: readonly { re: number; im: number }[], y: readonly { re: number; im: number }[]) => x.length === y.length && x.every((r, i) => r.re === y[i].re && r.im === y[i].im);
+  return a.gain === b.gain && same(a.zeros, b.zeros) && same(a.poles, b.poles);
+}
+
+/** The highest order estimation gives (approximation/order.ts MAX_ORDER). */
+const MAX_ESTIMATED_ORDER = 15;
+
 /**
  * The prototype's angular frequency (rad/s) that the passband edge maps to. Chebyshev and elliptic
  * prototypes have their ripple edge at 1 rad/s, and a Bessel prototype in 'delay' or 'phase'
