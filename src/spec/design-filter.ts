@@ -122,7 +122,8 @@ export function designFilter(input: unknown): FilterDesign {
   }
   if (order.estimate) {
     const spare = verified.realizedMarginDb ?? order.estimate.attenuationMarginDb; // a modified prototype's own margin
-    note('approximation', 'info', 'ORDER_ESTIMATED', `order ${order.order} meets the mask with ${Math.max(0, spare).toFixed(2)} dB to spare`);
+    const start = verified.stopbandStartRatio === undefined ? '' : `; the stopband of the realised (modified) response begins at ${(100 * verified.stopbandStartRatio).toFixed(1)} % of the mask's stopband edge (lowpass prototype frequency)`;
+    note('approximation', 'info', 'ORDER_ESTIMATED', `order ${order.order} meets the mask with ${Math.max(0, spare).toFixed(spare < 0.01 ? 3 : 2)} dB to spare${start}`);
   }
   const edges: Edge = order.passbandEdgeHz;
   for (const d of ladder.diagnostics) note('ladder', 'info', d.code, d.message);

@@ -85,6 +85,8 @@ export interface VerifiedOrder {
   readonly raisedFrom?: { readonly order: number; readonly worstAttenuationDb: number };
   /** The realised prototype's least stopband attenuation minus the mask's, dB (estimated orders whose ladder realises a modified prototype). */
   readonly realizedMarginDb?: number;
+  /** Where the realised prototype's stopband begins, as a fraction of the mask's stopband edge (lowpass prototype frequencies; <= 1 when met). */
+  readonly stopbandStartRatio?: number;
 }
 
 /**
@@ -103,10 +105,32 @@ export function synthesiseVerified(spec: DesignSpec, choice: OrderChoice): Verif
   const margin = (l: LadderSynthesis & { prototype: Zpk }) =>
     worstStopbandAttenuationDb(realizedZpk(l), estimate.selectivity * prototypeEdgeRadPerS(spec, l.prototype)) - asked;
   const first = margin(ladder);
-  if (first >= -STOPBAND_TOLERANCE_DB || choice.order >= MAX_ESTIMATED_ORDER) return { order: choice, ladder, realizedMarginDb: first };
+  const withStart = (o: OrderChoice, l: LadderSynthesis & { prototype: Zpk }, m: number, raisedFrom?: VerifiedOrder['raisedFrom']): VerifiedOrder => {
+    const edge = estimate.selectivity * prototypeEdgeRadPerS(spec, l.prototype);
+    return { order: o, ladder: l, raisedFrom, realizedMarginDb: m, stopbandStartRatio: m >= -STOPBAND_TOLERANCE_DB ? stopbandStart(realizedZpk(l), asked, edge) / edge : undefined };
+  };
+  if (first >= -STOPBAND_TOLERANCE_DB || choice.order >= MAX_ESTIMATED_ORDER) return withStart(choice, ladder, first);
   const raised = { ...choice, order: choice.order + 1 };
   const next = synthesise(spec, raised.order);
-  return { order: raised, ladder: next, raisedFrom: { order: choice.order, worstAttenuationDb: first + asked }, realizedMarginDb: margin(next) };
+  return withStart(raised, next, margin(next), { order: choice.order, worstAttenuationDb: first + asked });
+}
+
+/** Bisection steps for the stopband start: the bracket [1, edge] shrinks to rounding. */
+const START_STEPS = 60;
+
+/**
+ * Where a lowpass prototype's loss first reaches `attenuationDb` below `edgeRadPerS` (the loss rises
+ * monotonically through the transition band): bisection on [1, edge].
+ */
+function stopbandStart(prototype: Zpk, attenuationDb: number, edgeRadPerS: number): number {
+  let lo = Math.min(1, edgeRadPerS);
+  let hi = edgeRadPerS;
+  for (let i = 0; i < START_STEPS; i++) {
+    const mid = Math.sqrt(lo * hi);
+    if (-gainDbAt(prototype, mid) >= attenuationDb - STOPBAND_TOLERANCE_DB) hi = mid;
+    else lo = mid;
+  }
+  return hi;
 }
 
 function sameZpk(a: Zpk, b: Zpk): boolean {
