@@ -28,7 +28,8 @@ export function designSummary(design: FilterDesign): string {
   const s = design.spec;
   const e = design.evaluation;
   const lines: string[] = [];
-  lines.push(`${s.name}: ${s.response.family} ${s.response.type}, order ${design.order.order}${design.order.estimate ? ' (estimated from the mask)' : ''}, passband ${edges(design)}`);
+  const raised = design.diagnostics.some((d) => d.code === 'ORDER_RAISED') ? `; raised from ${design.order.order - 1}, whose modified even-order ladder misses the stopband` : '';
+  lines.push(`${s.name}: ${s.response.family} ${s.response.type}, order ${design.order.order}${design.order.estimate ? ` (estimated from the mask${raised})` : ''}, passband ${edges(design)}`);
   lines.push(`realisation: ${design.method}, ${design.opampCount} op-amps (${design.opamp.model}${'gainBandwidthHz' in design.opamp ? `, GBW ${fmtHz(design.opamp.gainBandwidthHz)}` : ''}), nominal passband gain ${fmtDb(design.nominalPassbandGainDb, 2)}`);
   lines.push('');
   lines.push('parts:');
