@@ -50,11 +50,18 @@ export function generateLuKernels(plan: SparseLuPlan, groups: readonly FillGroup
   }
 }
 
-/** Compiled kernels by parameter list and body; the oldest is dropped beyond {@link KERNEL_CACHE_SIZE}. */
+/** Compiled kernels by parameter list and body, oldest first (a Map keeps insertion order). */
 const kernelCache = new Map<string, Function>();
+let cachedChars = 0;
 
 /** Kernels kept compiled: a few circuit structures in use at once (design, trim, production) with room to spare. */
 export const KERNEL_CACHE_SIZE = 64;
+/**
+ * And at most this many characters of kernel text (the keys, about 2 bytes each): a large circuit's
+ * kernels run to a megabyte of text, so a long-running process that compiles many circuits keeps a
+ * bounded few of them.
+ */
+export const KERNEL_CACHE_CHARS = 4_000_000;
 
 /**
  * `new Function(...params, body)`, reused for an identical text. The functions are pure (all state in
@@ -64,10 +71,15 @@ export function cachedFunction(params: readonly string[], body: string): Functio
   const key = `${params.join(',')}\n${body}`;
   let f = kernelCache.get(key);
   if (f) {
-    kernelCache.delete(key); // refresh its place: the map keeps insertion order
+    kernelCache.delete(key); // refresh its place
   } else {
     f = new Function(...params, body);
-    if (kernelCache.size >= KERNEL_CACHE_SIZE) kernelCache.delete(kernelCache.keys().next().value!);
+    cachedChars += key.length;
+    while (kernelCache.size > 0 && (kernelCache.size >= KERNEL_CACHE_SIZE || cachedChars > KERNEL_CACHE_CHARS)) {
+      const oldest = kernelCache.keys().next().value!;
+      kernelCache.delete(oldest);
+      cachedChars -= oldest.length;
+    }
   }
   kernelCache.set(key, f);
   return f;
