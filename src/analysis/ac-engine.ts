@@ -140,6 +140,8 @@ class AcEngine implements CompiledAc {
   private readonly gCol: Int32Array;
   private readonly gPow: Int32Array;
   private readonly gWeight: Float64Array;
+  private readonly gTermStart: Int32Array;
+  private readonly gTerms: Int32Array;
   /** Group index ranges of the four classes of j^k: [cls[c], cls[c + 1]). */
   private readonly cls: Int32Array;
   // parameter -> the terms it enters
@@ -172,8 +174,6 @@ class AcEngine implements CompiledAc {
   private readonly transferKernel: TransferKernel | null;
   /** Every term and group weight from the parameters (weight-codegen.ts), for setParameters. */
   private readonly weightKernel: WeightKernel | null;
-  private readonly gTermStart: Int32Array;
-  private readonly gTerms: Int32Array;
 
   constructor(
     circuit: Circuit,
