@@ -8,12 +8,12 @@
  * 3rd ed., section 6.3.3 on cascade forms).
  *
  * Roots come from algebra/roots (Aberth-Ehrlich with polishing, exact conjugate symmetry). Pairing:
- * poles in conjugate pairs (real poles paired in sorted order), the pairs taken from the highest Q
- * down, each with the nearest remaining zero group (the rule of scipy.signal.zpk2sos).
+ * section-pairing.ts, the rule of scipy.signal.zpk2sos (the header's sections use the same).
  */
 import { Fraction, fractionToNumber, polynomialRoots, divideParts as cdiv, type Complex, type RationalFunction } from '../algebra/index';
 import { InvalidInputError } from '../errors';
 import { sweepKernelFor, type SweepKernel } from './factored-sweep';
+import { pairRoots, splitRoots } from './section-pairing';
 
 /** num(s)/den(s) = (n2 s^2 + n1 s + n0) / (d2 s^2 + d1 s + d0), real coefficients. */
 export interface AnalogSection {
@@ -125,26 +125,15 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
   const zeros = h.num.isZero() ? [] : polynomialRoots(h.num);
   const poles = polynomialRoots(h.den);
   const lead = h.num.isZero() ? new Fraction(0) : h.num.leading.div(h.den.leading);
-  const zg = groups(zeros);
-  const pg = groups(poles);
-  // Pair: poles by descending Q (closest to the j w axis relative to |p|), each with the nearest zero group.
-  pg.sort((a, b) => qOf(b) - qOf(a) || compareGroup(a, b));
-  const remaining = zg.slice();
-  const pairs: { p: Group | null; z: Group | null }[] = [];
-  for (const p of pg) {
-    let best = -1;
-    let bestDist = Infinity;
-    for (let i = 0; i < remaining.length; i++) {
-      if (p.roots.length === 1 && remaining[i].roots.length === 2 && remaining.some((g) => g.roots.length === 1)) continue;
-      const d = Math.hypot(remaining[i].roots[0].re - p.roots[0].re, Math.abs(remaining[i].roots[0].im) - Math.abs(p.roots[0].im));
-      if (d < bestDist) {
-        bestDist = d;
-        best = i;
-      }
-    }
-    pairs.push({ p, z: best >= 0 ? remaining.splice(best, 1)[0] : null });
-  }
-  for (const z of remaining) pairs.push({ p: null, z });
+  // Pair: the zpk2sos rule (section-pairing.ts): the highest-Q poles first, each with its nearest zeros;
+  // zeros beyond what the pole pairs take (an improper H) get sections of their own.
+  const zr = splitRoots(zeros, 'h.num');
+  const sectionRoots = pairRoots(zr, splitRoots(poles, 'h.den'), Math.ceil(poles.length / 2), 'analog');
+  const pairs: { p: Group | null; z: Group | null }[] = sectionRoots.map((r) => ({ p: r.p.length ? { roots: r.p } : null, z: r.z.length ? { roots: r.z } : null }));
+  const extra = zr.filter((r) => r.im !== 0).map((r): Group => ({ roots: [r, { re: r.re, im: -r.im }] }));
+  const extraReals = zr.filter((r) => r.im === 0).sort((a, b) => a.re - b.re);
+  for (let i = 0; i < extraReals.length; i += 2) extra.push({ roots: extraReals.slice(i, i + 2) });
+  for (const z of extra) pairs.push({ p: null, z });
 
   // Scale each factor to unit gain at 0 (or leave a root at the origin as s), tracking log2 of the gain.
   let log2 = log2Abs(lead);
@@ -247,16 +236,6 @@ function groups(roots: readonly Complex[]): Group[] {
   for (let i = 0; i + 1 < reals.length; i += 2) out.push({ roots: [reals[i], reals[i + 1]] });
   if (reals.length % 2 === 1) out.push({ roots: [reals[reals.length - 1]] });
   return out;
-}
-
-function qOf(g: Group): number {
-  const r = g.roots[0];
-  const mag = Math.hypot(r.re, r.im);
-  return r.re === 0 ? Infinity : mag / (2 * Math.abs(r.re));
-}
-
-function compareGroup(a: Group, b: Group): number {
-  return a.roots[0].re - b.roots[0].re || a.roots[0].im - b.roots[0].im;
 }
 
 /**

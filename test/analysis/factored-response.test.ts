@@ -129,6 +129,27 @@ describe('toFloatTransferFunction', () => {
     expectThrows(() => f.sweepInto([1, 2] as unknown as Float64Array, g, p), InvalidInputError, 'INVALID_ARGUMENT', 'frequencyHz');
   });
 
+  it('an improper H (more zeros than poles) and a polynomial: the zeros no pole pair takes get sections of their own', () => {
+    const cases = [
+      // (s + 1)(s + 2)(s^2 + s + 3) / (s + 5): four zeros, one pole
+      RationalFunction.fromPolys(Poly.fromCoefficients([1, 1]).mul(Poly.fromCoefficients([2, 1])).mul(Poly.fromCoefficients([3, 1, 1])), Poly.fromCoefficients([5, 1])),
+      // 2 (s^2 + 0.5 s + 4)(s - 3): a polynomial
+      RationalFunction.fromPolys(Poly.fromCoefficients([4, '1/2', 1]).mul(Poly.fromCoefficients([-3, 1])).mul(Poly.fromCoefficients([2])), Poly.fromCoefficients([1])),
+    ];
+    for (const h of cases) {
+      const f = toFloatTransferFunction(h);
+      const ws = [0.01, 0.3, 1, 2, 7, 40];
+      const sw = f.sweep(ws.map((w) => w / (2 * Math.PI)));
+      ws.forEach((w, i) => {
+        const e = exactAt(h, w);
+        const mag = Math.hypot(e.re, e.im);
+        const g = f.evaluate({ re: 0, im: w });
+        expect(Math.hypot(g.re - e.re, g.im - e.im)).toBeLessThan(1e-13 * mag);
+        expect(Math.abs(sw.gainDb[i] - 20 * Math.log10(mag))).toBeLessThan(1e-11);
+      });
+    }
+  });
+
   it('a constant and the zero function', () => {
     const c = toFloatTransferFunction(RationalFunction.constant('-3/2'));
     expect(c.evaluate({ re: 0, im: 5 })).toEqual({ re: -1.5, im: 0 });
