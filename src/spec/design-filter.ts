@@ -118,7 +118,7 @@ export function designFilter(input: unknown): FilterDesign {
   const { order, ladder } = verified;
   if (verified.raisedFrom) {
     const r = verified.raisedFrom;
-    note('approximation', 'info', 'ORDER_RAISED', `order ${r.order} realised with equal terminations (the modified even-order response) reaches only ${r.worstAttenuationDb.toFixed(1)} dB at the stopband edge; order ${order.order} is used`);
+    note('approximation', 'info', 'ORDER_RAISED', `order ${r.order} as a ladder (the modified even-order response) reaches only ${r.worstAttenuationDb.toFixed(1)} dB at the stopband edge; order ${order.order} is used`);
   }
   if (order.estimate) {
     const spare = verified.realizedMarginDb ?? order.estimate.attenuationMarginDb; // a modified prototype's own margin
