@@ -10,8 +10,8 @@ import { type Complex, cAbs, cDiv, cMul, cSub } from '../algebra/complex.js';
 
 /** A transfer function in zeros/poles/gain form, roots in rad/s. */
 export interface Zpk {
-  readonly zeros: Complex[];
-  readonly poles: Complex[];
+  readonly zeros: readonly Complex[];
+  readonly poles: readonly Complex[];
   readonly gain: number;
 }
 

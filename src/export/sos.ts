@@ -16,6 +16,7 @@
  * denominator: d2 = 1 for a pole pair, d1 = 1 and d2 = 0 for a single real pole.
  */
 import type { Complex } from '../algebra/complex';
+import type { Zpk } from '../approximation/zpk';
 import type { RationalFunction } from '../algebra/rational-function';
 import { toFloatTransferFunction, type AnalogSection } from '../analysis/factored-response';
 import { pairRoots, splitRoots } from '../analysis/section-pairing';
@@ -32,12 +33,8 @@ export interface DigitalSection {
   readonly a2: number;
 }
 
-/** Zeros/poles/gain, H = gain prod(x - zeros) / prod(x - poles), x = s (rad/s) or z. */
-export interface ZpkInput {
-  readonly zeros: readonly Complex[];
-  readonly poles: readonly Complex[];
-  readonly gain: number;
-}
+/** Zeros/poles/gain, H = gain prod(x - zeros) / prod(x - poles), x = s (rad/s) or z: the approximation stage's Zpk. */
+export type ZpkInput = Zpk;
 
 export interface AnalogSectionOptions {
   /**

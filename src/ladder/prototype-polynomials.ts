@@ -7,14 +7,11 @@
 import { Fraction, Q0, Q1, fractionFromDouble } from '../algebra/rational';
 import { Poly } from '../algebra/poly';
 import type { Complex } from '../algebra/complex';
+import type { Zpk } from '../approximation/zpk';
 import { InvalidInputError, UnrealizableError } from '../errors';
 
-/** A lowpass prototype in zeros/poles/gain form (the approximation stage's output). */
-export interface PrototypeZpk {
-  readonly zeros: readonly Complex[];
-  readonly poles: readonly Complex[];
-  readonly gain: number;
-}
+/** A lowpass prototype in zeros/poles/gain form: the approximation stage's Zpk. */
+export type PrototypeZpk = Zpk;
 
 export interface PrototypePolynomials {
   /** prod (s - p_i), exact, monic, strictly Hurwitz. */

@@ -40,7 +40,6 @@ import {
   nominalPassbandGainDb,
   opampModelOf,
   prototypeEdgeRadPerS,
-  realizedZpk,
   referenceFrequencyHz,
   type Edge,
   type ImpedanceLevel,
@@ -173,7 +172,7 @@ export function designFilter(input: unknown): FilterDesign {
   const circuit = withModel(precompensation ? realization.circuit.withValues(selection.values) : chosenIdeal);
 
   const nominal = nominalPassbandGainDb(ladder);
-  const rp = realizedZpk(ladder);
+  const rp = ladder.realizedPrototype;
   const dc = gainDbAt(rp, 0);
   const evaluation = evaluateResponse({
     type: spec.response.type,

@@ -8,7 +8,7 @@
  * ({@link toExactDecimal}); every later transform is exact.
  */
 import { Fraction, Q0, Q1, toFraction } from '../algebra/rational';
-import { estimateOrder, frequencyAtAttenuation, gainDbAt, type OrderEstimate, type Zpk } from '../approximation/index';
+import { estimateOrder, frequencyAtAttenuation, gainDbAt, MAX_ORDER, type OrderEstimate, type Zpk } from '../approximation/index';
 import { designLadderPrototype, type ExactLadder, type Ladder, type LadderSynthesis } from '../ladder/index';
 import { fromLadder, lowpassToBandpass, lowpassToBandstop, lowpassToHighpass, scaleFrequency, scaleImpedance, type NetworkLadder } from '../transform/index';
 import type { OpampModel } from '../netlist/opamp';
@@ -91,28 +91,28 @@ export interface VerifiedOrder {
 
 /**
  * Synthesises the chosen order and, for an estimated order, checks the prototype the ladder really
- * realises. The estimate is computed on the unmodified prototype; an even-order elliptic ladder with
- * equal terminations realises a modified response whose stopband begins higher (for order 4, 0.5 dB
- * ripple and 40 dB: at 1.85 instead of 1.63 rad/s), so a mask the estimate just meets can be missed by
- * ten dB or more. Then the next order (odd, unmodified, which meets it) is used.
+ * realises. The estimate is computed on the unmodified prototype; an even-order elliptic ladder
+ * realises a modified response whose stopband begins higher (for order 4, 0.5 dB ripple and 40 dB: at
+ * 1.85 instead of 1.63 rad/s), so a mask the estimate just meets can be missed by ten dB or more.
+ * Then the next order (odd, unmodified, which meets it) is used.
  */
 export function synthesiseVerified(spec: DesignSpec, choice: OrderChoice): VerifiedOrder {
   const ladder = synthesise(spec, choice.order);
   const estimate = choice.estimate;
   // the estimate holds for the prototype itself; only a ladder that realises another one needs the check
-  if (!estimate || sameZpk(realizedZpk(ladder), ladder.prototype)) return { order: choice, ladder };
+  if (!estimate || sameZpk(ladder.realizedPrototype, ladder.prototype)) return { order: choice, ladder };
   const asked = spec.response.stopbandAttenuationDb!;
-  const margin = (l: LadderSynthesis & { prototype: Zpk }) =>
-    worstStopbandAttenuationDb(realizedZpk(l), estimate.selectivity * prototypeEdgeRadPerS(spec, l.prototype)) - asked;
-  const first = margin(ladder);
-  const withStart = (o: OrderChoice, l: LadderSynthesis & { prototype: Zpk }, m: number, raisedFrom?: VerifiedOrder['raisedFrom']): VerifiedOrder => {
+  const check = (l: typeof ladder) => {
     const edge = estimate.selectivity * prototypeEdgeRadPerS(spec, l.prototype);
-    return { order: o, ladder: l, raisedFrom, realizedMarginDb: m, stopbandStartRatio: m >= -STOPBAND_TOLERANCE_DB ? stopbandStart(realizedZpk(l), asked, edge) / edge : undefined };
+    const realizedMarginDb = worstStopbandAttenuationDb(l.realizedPrototype, edge) - asked;
+    const met = realizedMarginDb >= -STOPBAND_TOLERANCE_DB;
+    return { met, found: { realizedMarginDb, stopbandStartRatio: met ? stopbandStart(l.realizedPrototype, asked, edge) / edge : undefined } };
   };
-  if (first >= -STOPBAND_TOLERANCE_DB || choice.order >= MAX_ESTIMATED_ORDER) return withStart(choice, ladder, first);
+  const first = check(ladder);
+  if (first.met || choice.order >= MAX_ORDER) return { order: choice, ladder, ...first.found };
   const raised = { ...choice, order: choice.order + 1 };
   const next = synthesise(spec, raised.order);
-  return withStart(raised, next, margin(next), { order: choice.order, worstAttenuationDb: first + asked });
+  return { order: raised, ladder: next, raisedFrom: { order: choice.order, worstAttenuationDb: first.found.realizedMarginDb + asked }, ...check(next).found };
 }
 
 /** Bisection steps for the stopband start: the bracket [1, edge] shrinks to rounding. */
@@ -137,9 +137,6 @@ function sameZpk(a: Zpk, b: Zpk): boolean {
   const same = (x: readonly { re: number; im: number }[], y: readonly { re: number; im: number }[]) => x.length === y.length && x.every((r, i) => r.re === y[i].re && r.im === y[i].im);
   return a.gain === b.gain && same(a.zeros, b.zeros) && same(a.poles, b.poles);
 }
-
-/** The highest order estimation gives (approximation/order.ts MAX_ORDER). */
-const MAX_ESTIMATED_ORDER = 15;
 
 /**
  * The prototype's angular frequency (rad/s) that the passband edge maps to. Chebyshev and elliptic
@@ -312,11 +309,6 @@ export function opampModelOf(spec: DesignSpec): OpampModel {
  * normalised prototypes peak at 0 dB, so the passband peak is 20 log10(T0) - 20 log10|H(0)|.
  */
 export function nominalPassbandGainDb(synthesis: LadderSynthesis): number {
-  return 20 * Math.log10(synthesis.dcTransfer) - gainDbAt(realizedZpk(synthesis), 0);
+  return 20 * Math.log10(synthesis.dcTransfer) - gainDbAt(synthesis.realizedPrototype, 0);
 }
 
-/** The prototype the ladder realises (after any even-order modification), as a Zpk. */
-export function realizedZpk(synthesis: LadderSynthesis): Zpk {
-  const p = synthesis.realizedPrototype;
-  return { zeros: [...p.zeros], poles: [...p.poles], gain: p.gain };
-}

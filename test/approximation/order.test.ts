@@ -49,7 +49,7 @@ describe(`estimateOrder matches scipy ${fixture.versions.scipy} (analog=True)`, 
 // ---- Bessel: evaluate the designed response on the real frequency axis of the mask ----
 
 /** H(s) = k prod(s - z)/prod(s - p) of a lowpass prototype. */
-function evaluate(zpk: { zeros: Complex[]; poles: Complex[]; gain: number }, s: Complex): number {
+function evaluate(zpk: { readonly zeros: readonly Complex[]; readonly poles: readonly Complex[]; readonly gain: number }, s: Complex): number {
   let h: Complex = { re: zpk.gain, im: 0 };
   for (const z of zpk.zeros) h = cMul(h, cSub(s, z));
   for (const p of zpk.poles) h = cDiv(h, cSub(s, p));

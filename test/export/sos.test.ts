@@ -96,7 +96,7 @@ function digitalCascade(sections: DigitalSection[], omegaT: number): Complex {
   return h;
 }
 
-const scaleZpk = (p: { zeros: Complex[]; poles: Complex[]; gain: number }, w: number) => ({
+const scaleZpk = (p: { readonly zeros: readonly Complex[]; readonly poles: readonly Complex[]; readonly gain: number }, w: number) => ({
   zeros: p.zeros.map((z) => ({ re: z.re * w, im: z.im * w })),
   poles: p.poles.map((z) => ({ re: z.re * w, im: z.im * w })),
   gain: p.gain * w ** (p.poles.length - p.zeros.length),

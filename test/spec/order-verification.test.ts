@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { estimateOrder, gainDbAt } from '../../src/approximation/index';
 import { designFilter } from '../../src/spec/index';
-import { realizedZpk, worstStopbandAttenuationDb } from '../../src/spec/pipeline-stages';
+import { worstStopbandAttenuationDb } from '../../src/spec/pipeline-stages';
 
 /** The stopband edge (Hz, passband edge 1 kHz) at which the elliptic estimate's continuous order is just below `order`. */
 function edgeJustBelow(order: number, rippleDb: number, attenuationDb: number): number {
@@ -36,7 +36,7 @@ describe('estimated orders on the realised prototype', () => {
       expect(d.order.order).toBe(order + 1);
       expect(d.diagnostics.some((x) => x.code === 'ORDER_RAISED')).toBe(true);
       // the realised prototype of the design meets the mask at and above the stopband edge (prototype frequency = edge / passband edge)
-      expect(worstStopbandAttenuationDb(realizedZpk(d.ladder), edge / 1000)).toBeGreaterThanOrEqual(att - 1e-6);
+      expect(worstStopbandAttenuationDb(d.ladder.realizedPrototype, edge / 1000)).toBeGreaterThanOrEqual(att - 1e-6);
       expect(d.diagnostics.some((x) => x.code === 'STOPBAND_NOT_MET')).toBe(false);
     }
   });
@@ -49,7 +49,7 @@ describe('estimated orders on the realised prototype', () => {
     const d = designFilter(mask(edge, 0.5, 40));
     expect(d.order.order).toBe(4);
     expect(d.diagnostics.some((x) => x.code === 'ORDER_RAISED')).toBe(false);
-    expect(worstStopbandAttenuationDb(realizedZpk(d.ladder), 2.2)).toBeGreaterThanOrEqual(40 - 1e-6);
+    expect(worstStopbandAttenuationDb(d.ladder.realizedPrototype, 2.2)).toBeGreaterThanOrEqual(40 - 1e-6);
     // the note says where the modified stopband begins: below the mask's edge, above the unmodified prototype's
     const note = d.diagnostics.find((x) => x.code === 'ORDER_ESTIMATED')!.message;
     const pct = Number(/begins at ([0-9.]+) %/.exec(note)![1]);
@@ -59,10 +59,10 @@ describe('estimated orders on the realised prototype', () => {
 
   it('worstStopbandAttenuationDb: an elliptic prototype gives its equiripple minimum, a monotone one its value at the edge', () => {
     const d = designFilter({ ...mask(3000, 0.5, 40), response: { ...mask(3000, 0.5, 40).response, family: 'elliptic', order: 5, stopbandEdgeHz: undefined } });
-    const p = realizedZpk(d.ladder);
+    const p = d.ladder.realizedPrototype;
     // an order-5 elliptic prototype designed for 40 dB: the minima above its stopband edge are 40 dB (common practice, no source)
     expect(Math.abs(worstStopbandAttenuationDb(p, 3) - 40)).toBeLessThan(1e-6);
     const bw = designFilter({ name: 'bw', response: { type: 'lowpass', family: 'butterworth', order: 3, passbandEdgeHz: 1000 }, parts: { opamp: { model: 'ideal' } } });
-    expect(worstStopbandAttenuationDb(realizedZpk(bw.ladder), 2)).toBeCloseTo(-gainDbAt(realizedZpk(bw.ladder), 2), 12);
+    expect(worstStopbandAttenuationDb(bw.ladder.realizedPrototype, 2)).toBeCloseTo(-gainDbAt(bw.ladder.realizedPrototype, 2), 12);
   });
 });
