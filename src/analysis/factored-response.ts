@@ -130,10 +130,7 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
   const zr = splitRoots(zeros, 'h.num');
   const sectionRoots = pairRoots(zr, splitRoots(poles, 'h.den'), Math.ceil(poles.length / 2), 'analog');
   const pairs: { p: Group | null; z: Group | null }[] = sectionRoots.map((r) => ({ p: r.p.length ? { roots: r.p } : null, z: r.z.length ? { roots: r.z } : null }));
-  const extra = zr.filter((r) => r.im !== 0).map((r): Group => ({ roots: [r, { re: r.re, im: -r.im }] }));
-  const extraReals = zr.filter((r) => r.im === 0).sort((a, b) => a.re - b.re);
-  for (let i = 0; i < extraReals.length; i += 2) extra.push({ roots: extraReals.slice(i, i + 2) });
-  for (const z of extra) pairs.push({ p: null, z });
+  for (const z of groups(zr.flatMap((r) => (r.im === 0 ? [r] : [r, { re: r.re, im: -r.im }])))) pairs.push({ p: null, z });
 
   // Scale each factor to unit gain at 0 (or leave a root at the origin as s), tracking log2 of the gain.
   let log2 = log2Abs(lead);
@@ -185,7 +182,11 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     const gainDb = new Float64Array(m);
     const phaseDeg = new Float64Array(m);
     const groupDelayS = new Float64Array(m);
-    kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS, options.groupDelay ?? true);
+    if (options.groupDelay ?? true) kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS);
+    else {
+      kernelOf()(frequencyHz, gainDb, phaseDeg, null);
+      groupDelayS.fill(NaN);
+    }
     return { frequencyHz, gainDb, phaseDeg, groupDelayS };
   };
   const sweepInto = (frequencyHz: Float64Array, gainDb: Float64Array, phaseDeg: Float64Array, groupDelayS?: Float64Array): void => {
@@ -197,17 +198,10 @@ export function toFloatTransferFunction(h: RationalFunction): FloatTransferFunct
     check(gainDb, 'gainDb');
     check(phaseDeg, 'phaseDeg');
     check(groupDelayS, 'groupDelayS');
-    kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS ?? scratchFor(m), groupDelayS !== undefined);
+    kernelOf()(frequencyHz, gainDb, phaseDeg, groupDelayS ?? null);
   };
 
   return { zeros, poles, gain, sections, sectionGain, evaluate, sweep, sweepInto };
-}
-
-/** A reused scratch array for the kernel's (unused) delay output. */
-let scratch = new Float64Array(0);
-function scratchFor(m: number): Float64Array {
-  if (scratch.length < m) scratch = new Float64Array(m);
-  return scratch.length === m ? scratch : scratch.subarray(0, m);
 }
 
 interface Group {

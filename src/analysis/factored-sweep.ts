@@ -37,13 +37,13 @@ export interface SweepFactors {
   readonly denominator: Float64Array;
 }
 
-/** Fills gainDb, phaseDeg and (when withDelay, else NaN) groupDelayS at the frequencies (Hz). */
-export type SweepKernel = (frequencyHz: Float64Array, gainDb: Float64Array, phaseDeg: Float64Array, groupDelayS: Float64Array, withDelay: boolean) => void;
+/** Fills gainDb, phaseDeg and (unless null) groupDelayS at the frequencies (Hz). */
+export type SweepKernel = (frequencyHz: Float64Array, gainDb: Float64Array, phaseDeg: Float64Array, groupDelayS: Float64Array | null) => void;
 
 /** The generated kernel, or the interpreted one where `new Function` is unavailable. */
 export function sweepKernelFor(f: SweepFactors): SweepKernel {
   try {
-    const k = cachedFunction(['frequencyHz', 'gainDb', 'phaseDeg', 'groupDelayS', 'withDelay'], generatedSource(f)) as SweepKernel;
+    const k = cachedFunction(['frequencyHz', 'gainDb', 'phaseDeg', 'groupDelayS'], generatedSource(f)) as SweepKernel;
     return k;
   } catch {
     return interpretedSweepKernel(f);
@@ -69,7 +69,7 @@ export function interpretedSweepKernel(f: SweepFactors): SweepKernel {
   const rn = f.realNumerator;
   const cn = f.complexNumerator;
   const dn = f.denominator;
-  return (frequencyHz, gainDb, phaseDeg, groupDelayS, withDelay) => {
+  return (frequencyHz, gainDb, phaseDeg, groupDelayS) => {
     const m = frequencyHz.length;
     let phase = 0;
     let qr = 0;
@@ -138,7 +138,7 @@ export function interpretedSweepKernel(f: SweepFactors): SweepKernel {
         }
         phaseDeg[p] = phase * DEG_PER_RAD;
       }
-      if (withDelay) {
+      if (groupDelayS !== null) {
         // tau = -d arg H/dw = sum over factors of -+ d/dw arg(x + j y) = (x y' - y x')/(x^2 + y^2),
         // with x = c0 - c2 w^2, y = c1 w: x' = -2 c2 w, y' = c1; real numerator factors have constant
         // phase (0 or pi) between their zeros
@@ -154,8 +154,6 @@ export function interpretedSweepKernel(f: SweepFactors): SweepKernel {
           tau -= (x * cn[o + 1] + y * 2 * cn[o + 2] * w) / (x * x + y * y);
         }
         groupDelayS[p] = tau;
-      } else {
-        groupDelayS[p] = NaN;
       }
     }
   };
@@ -218,12 +216,10 @@ for (let p = 0; p < m; p++) {
     }
     phaseDeg[p] = phase * ${lit(DEG_PER_RAD)};
   }
-  if (withDelay) {
+  if (groupDelayS !== null) {
     let tau = 0;
     ${delay.join('\n    ')}
     groupDelayS[p] = tau;
-  } else {
-    groupDelayS[p] = NaN;
   }
 }`;
 }

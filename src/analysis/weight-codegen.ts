@@ -44,7 +44,7 @@ function weightSource(s: WeightStructure): string {
       const v = `p[${s.factorParameter[f]}]`;
       e = x === 1 ? `${e} * ${v}` : x === -1 ? `${e} / ${v}` : `${e} * ${v} ** ${x}`;
     }
-    lines.push(`const t${t} = ${e === '' ? '0' : e}; tw[${t}] = t${t};`);
+    lines.push(`const t${t} = ${e}; tw[${t}] = t${t};`);
   }
   for (let g = 0; g + 1 < s.groupStart.length; g++) {
     let e = '0';

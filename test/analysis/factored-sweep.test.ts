@@ -23,7 +23,7 @@ function angleGap(a: number, b: number): number {
 function run(k: ReturnType<typeof sweepKernelFor>, f: ArrayLike<number>, withDelay = true) {
   const fr = Float64Array.from(f);
   const out = { g: new Float64Array(fr.length), p: new Float64Array(fr.length), d: new Float64Array(fr.length) };
-  k(fr, out.g, out.p, out.d, withDelay);
+  k(fr, out.g, out.p, withDelay ? out.d : null);
   return out;
 }
 
