@@ -24,7 +24,7 @@
  * `new Function` and cached by its text (lu-codegen.ts), and an interpreted one over coefficient
  * arrays where code generation is unavailable.
  */
-import { cachedFunction } from './lu-codegen';
+import { cachedFunction, numberLiteral } from './lu-codegen';
 
 /** The factors of H as flat arrays: see the module comment. */
 export interface SweepFactors {
@@ -159,7 +159,7 @@ export function interpretedSweepKernel(f: SweepFactors): SweepKernel {
   };
 }
 
-const lit = (x: number): string => (Object.is(x, -0) ? '(-0)' : x < 0 ? `(${String(x)})` : String(x));
+const lit = numberLiteral;
 
 /** The interpreted kernel's text with the factor loops unrolled and the coefficients as literals. */
 function generatedSource(f: SweepFactors): string {

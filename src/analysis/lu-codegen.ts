@@ -50,6 +50,14 @@ export function generateLuKernels(plan: SparseLuPlan, groups: readonly FillGroup
   }
 }
 
+/**
+ * A double as source text that evaluates to exactly it: String() round-trips every double; negatives
+ * (and -0) are parenthesised so the literal is safe next to any operator (`a - (-1)`, `(-2) ** 2`).
+ */
+export function numberLiteral(x: number): string {
+  return Object.is(x, -0) ? '(-0)' : x < 0 ? `(${String(x)})` : String(x);
+}
+
 /** Compiled kernels by parameter list and body, oldest first (a Map keeps insertion order). */
 const kernelCache = new Map<string, Function>();
 let cachedChars = 0;

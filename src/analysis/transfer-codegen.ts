@@ -13,7 +13,7 @@
  * The text holds only numeric literals from the plan and the circuit's constant right-hand side and
  * output weights (printed with String(), which round-trips a double exactly).
  */
-import { cachedFunction, fillExpressions, MAX_GENERATED_OPERATIONS, type FillGroup } from './lu-codegen';
+import { cachedFunction, fillExpressions, MAX_GENERATED_OPERATIONS, numberLiteral, type FillGroup } from './lu-codegen';
 import type { SparseLuPlan } from './sparse-lu';
 
 /** sum of weight * x[index], in list order. */
@@ -43,7 +43,7 @@ export function generateTransferKernel(plan: SparseLuPlan, groups: readonly Fill
   }
 }
 
-const lit = (x: number): string => (Object.is(x, -0) ? '-0' : String(x));
+const lit = numberLiteral;
 
 function transferSource(plan: SparseLuPlan, groups: readonly FillGroup[], problem: TransferProblem): string {
   const { n, pivotSlot, pivotRow, pivotCol, lStart, lSlot, lRow, uStart, uSlot, uCol, tStart, target } = plan;

@@ -8,7 +8,7 @@
  * in order: * v, / v or * v ** e) and updateGroup (0, then + each term in order), so the weights are
  * the same bit for bit. Literals only: coefficients printed with String() (exact round trip).
  */
-import { cachedFunction, MAX_GENERATED_OPERATIONS } from './lu-codegen';
+import { cachedFunction, MAX_GENERATED_OPERATIONS, numberLiteral } from './lu-codegen';
 
 /** (parameters, term weights out, group weights out). */
 export type WeightKernel = (p: Float64Array, tw: Float64Array, gw: Float64Array) => void;
@@ -38,7 +38,7 @@ function weightSource(s: WeightStructure): string {
   const lines: string[] = [];
   const terms = s.coefficient.length;
   for (let t = 0; t < terms; t++) {
-    let e = Object.is(s.coefficient[t], -0) ? '-0' : String(s.coefficient[t]);
+    let e = numberLiteral(s.coefficient[t]);
     for (let f = s.factorStart[t]; f < s.factorStart[t + 1]; f++) {
       const x = s.factorExponent[f];
       const v = `p[${s.factorParameter[f]}]`;
