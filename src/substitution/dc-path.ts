@@ -25,13 +25,8 @@ import { cAbs, cAdd, cDiv, cMul, type Complex } from '../algebra/complex';
 import type { RationalFunction } from '../algebra/rational-function';
 import { element, impedanceOf, type Network, type NetworkLadder } from '../transform/network';
 import { roundToSignificant } from './gic-choices';
+import { MAX_LEVEL, oneTwoFiveLevels } from './level-sequence';
 
-/** The 1-2-5 multipliers of one decade. */
-const STEPS = [1, 2, 5] as const;
-/** The smallest level tried: a DC resistor of 10 reactances at the edge already disturbs < 0.5 dB. */
-const MIN_LEVEL = 10;
-/** The largest level tried: beyond 1e9 reactances the resistors are no longer buildable. */
-const MAX_LEVEL = 1e9;
 /** Significant digits of the free DC-path resistor (a value the next stage will round anyway). */
 const DC_PATH_DIGITS = 3;
 /** Linear check points on 0 .. omega_e. */
@@ -130,44 +125,41 @@ export function chooseDcPath(b: NetworkLadder, h: RationalFunction, omegaEdge: n
   const level = (a: number, c: Fraction) => roundToSignificant(a / (omegaEdge * fractionToNumber(c)), DC_PATH_DIGITS);
 
   let last: DcPathChoice | undefined;
-  for (let decade = MIN_LEVEL; decade <= MAX_LEVEL; decade *= 10) {
-    for (const step of STEPS) {
-      const a = decade * step;
-      const rs = cs ? level(a, cs) : null;
-      let rl: Fraction | null = null;
-      let dcGainError = 0;
-      if (cl) {
-        const { a: A, b: B } = dcChainWithSource(b, rs);
-        const denom = Q1.div(h0).sub(A);
-        if (denom.s > 0n && denom.n > 0n) rl = B.div(denom);
-        else {
-          rl = level(a, cl);
-          const gain = Q1.div(A.add(B.div(rl)));
-          dcGainError = fractionToNumber(gain.div(h0)) - 1;
-        }
-      } else if (cs) {
-        const gain = Q1.div(dcChainWithSource(b, rs).a);
+  for (const a of oneTwoFiveLevels()) {
+    const rs = cs ? level(a, cs) : null;
+    let rl: Fraction | null = null;
+    let dcGainError = 0;
+    if (cl) {
+      const { a: A, b: B } = dcChainWithSource(b, rs);
+      const denom = Q1.div(h0).sub(A);
+      if (denom.s > 0n && denom.n > 0n) rl = B.div(denom);
+      else {
+        rl = level(a, cl);
+        const gain = Q1.div(A.add(B.div(rl)));
         dcGainError = fractionToNumber(gain.div(h0)) - 1;
       }
-      const zs = cs ? parallelRc(cs, rs) : null;
-      const zl = cl ? parallelRc(cl, rl) : null;
-      let worst = 0;
-      grid.forEach((w, i) => {
-        const t = branchChains[i];
-        const zsw = zs ? zs(w) : ZERO;
-        const A = cAdd(t[0], cMul(zsw, t[2]));
-        const B = cAdd(t[1], cMul(zsw, t[3]));
-        const hw = cDiv(ONE, zl ? cAdd(A, cDiv(B, zl(w))) : A);
-        worst = Math.max(worst, Math.abs(20 * Math.log10(cAbs(cDiv(hw, href[i])))));
-      });
-      const ladder: NetworkLadder = {
-        source: cs && rs ? { kind: 'parallel', parts: [b.source as Network, element('R', rs, originOf(b.source as Network))] } : b.source,
-        load: cl && rl ? { kind: 'parallel', parts: [b.load as Network, element('R', rl, originOf(b.load as Network))] } : b.load,
-        branches: b.branches,
-      };
-      last = { sourceOhms: rs, loadOhms: rl, ladder, estimatedErrorDb: worst, dcGainError };
-      if (worst <= boundDb) return last;
+    } else if (cs) {
+      const gain = Q1.div(dcChainWithSource(b, rs).a);
+      dcGainError = fractionToNumber(gain.div(h0)) - 1;
     }
+    const zs = cs ? parallelRc(cs, rs) : null;
+    const zl = cl ? parallelRc(cl, rl) : null;
+    let worst = 0;
+    grid.forEach((w, i) => {
+      const t = branchChains[i];
+      const zsw = zs ? zs(w) : ZERO;
+      const A = cAdd(t[0], cMul(zsw, t[2]));
+      const B = cAdd(t[1], cMul(zsw, t[3]));
+      const hw = cDiv(ONE, zl ? cAdd(A, cDiv(B, zl(w))) : A);
+      worst = Math.max(worst, Math.abs(20 * Math.log10(cAbs(cDiv(hw, href[i])))));
+    });
+    const ladder: NetworkLadder = {
+      source: cs && rs ? { kind: 'parallel', parts: [b.source as Network, element('R', rs, originOf(b.source as Network))] } : b.source,
+      load: cl && rl ? { kind: 'parallel', parts: [b.load as Network, element('R', rl, originOf(b.load as Network))] } : b.load,
+      branches: b.branches,
+    };
+    last = { sourceOhms: rs, loadOhms: rl, ladder, estimatedErrorDb: worst, dcGainError };
+    if (worst <= boundDb) return last;
   }
   return last as DcPathChoice;
 }

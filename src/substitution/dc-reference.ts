@@ -38,14 +38,9 @@ import { Circuit } from '../netlist/circuit';
 import { toFloatPassbandErrorDb } from './dc-path';
 import type { FloatingInductorGroup } from './embedding-order';
 import { roundToSignificant } from './gic-choices';
+import { oneTwoFiveLevels } from './level-sequence';
 import { ElementNames, GROUND, type PlacedElement } from './ladder-placement';
 
-/** The 1-2-5 multipliers of one decade. */
-const STEPS = [1, 2, 5] as const;
-/** The smallest level tried: ten times the working impedance, a clear departure from the ladder below it. */
-const MIN_LEVEL = 10;
-/** The largest level tried (as dc-path.ts): far beyond buildable; reaching it is reported as a bound not met. */
-const MAX_LEVEL = 1e9;
 /** Significant digits of the free DC-reference resistors (values the next stage rounds anyway). */
 const DC_REFERENCE_DIGITS = 3;
 /** Grid points per decade of the passband search grid: a narrow band (Q = 10) still gets ~40 points. */
@@ -220,20 +215,17 @@ export function chooseDcReference(
   const k = fractionToNumber(levels.k);
   const cF = fractionToNumber(levels.capacitorF);
   let last: DcReferenceChoice | undefined;
-  for (let decade = MIN_LEVEL; decade <= MAX_LEVEL; decade *= 10) {
-    for (const step of STEPS) {
-      const a = decade * step;
-      const groups: DcReferenceGroup[] = floating.map((g, i) =>
-        kinds[i] === 'dc-return'
-          ? { ...g, remedy: 'dc-return', node: g.nodes[0], resistorOhms: roundToSignificant((a * levels.r0) / (levels.omega0 * k), DC_REFERENCE_DIGITS) } // omega0 k R_dc = a R0
-          : { ...g, remedy: 'lossy-converters', resistorOhms: roundToSignificant(a / (levels.omega0 * cF), DC_REFERENCE_DIGITS) }, // omega0 C R_p = a
-      );
-      for (const g of islands) groups.push({ ...g, remedy: 'shunt-resistor', node: g.nodes[0], resistorOhms: roundToSignificant(a * levels.r0, DC_REFERENCE_DIGITS) });
-      const hWith = transferFunction(passiveEquivalent(placed, ports.input, ports.output, groups, levels.k, levels.capacitorF), { input: 'VIN', output: ports.output });
-      const errorDb = toFloatPassbandErrorDb(hWith, h, grid);
-      last = { groups, errorDb, boundDb, transferFunction: hWith, passbandHz: [grid[0] / (2 * Math.PI), grid[grid.length - 1] / (2 * Math.PI)] };
-      if (errorDb <= boundDb) return last;
-    }
+  for (const a of oneTwoFiveLevels()) {
+    const groups: DcReferenceGroup[] = floating.map((g, i) =>
+      kinds[i] === 'dc-return'
+        ? { ...g, remedy: 'dc-return', node: g.nodes[0], resistorOhms: roundToSignificant((a * levels.r0) / (levels.omega0 * k), DC_REFERENCE_DIGITS) } // omega0 k R_dc = a R0
+        : { ...g, remedy: 'lossy-converters', resistorOhms: roundToSignificant(a / (levels.omega0 * cF), DC_REFERENCE_DIGITS) }, // omega0 C R_p = a
+    );
+    for (const g of islands) groups.push({ ...g, remedy: 'shunt-resistor', node: g.nodes[0], resistorOhms: roundToSignificant(a * levels.r0, DC_REFERENCE_DIGITS) });
+    const hWith = transferFunction(passiveEquivalent(placed, ports.input, ports.output, groups, levels.k, levels.capacitorF), { input: 'VIN', output: ports.output });
+    const errorDb = toFloatPassbandErrorDb(hWith, h, grid);
+    last = { groups, errorDb, boundDb, transferFunction: hWith, passbandHz: [grid[0] / (2 * Math.PI), grid[grid.length - 1] / (2 * Math.PI)] };
+    if (errorDb <= boundDb) return last;
   }
   return last as DcReferenceChoice;
 }
