@@ -134,7 +134,7 @@ export function drawMonteCarloBoards(circuit: Circuit, spec: ToleranceSpec, tria
   const tol = resolveTolerances(circuit, spec);
   if (tol.inputs.some((i) => i.parameter !== i.name)) throw new Error('drawMonteCarloBoards: only part tolerances are replayed (alter cards set element values)');
   const engine = compileAc(circuit, TRANSFER);
-  const draws = new TrialDraw(tol, Float64Array.from(tol.inputs, (i) => engine.parameters[engine.parameterIndex(i.parameter)]));
+  const draws = TrialDraw.forEngine(tol, engine);
   const streams = new BlockStreams(seed);
   const p = tol.inputs.length;
   const values = new Float64Array(trials * p);

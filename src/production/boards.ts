@@ -59,11 +59,10 @@ export function sampleBoards(circuit: Circuit, transfer: TransferSpec, spec: Tol
   const tol = resolveTolerances(circuit, spec);
   const engine = compileAc(circuit, transfer);
   const parameters = tol.inputs.map((i) => i.parameter);
-  const slots = Int32Array.from(parameters, (p) => engine.parameterIndex(p));
-  const nominal = Float64Array.from(slots, (s) => engine.parameters[s]);
+  const draws = TrialDraw.forEngine(tol, engine); // runMonteCarlo's draw order and value model
+  const { slots, nominal } = draws;
   const q = slots.length;
   const values = new Float64Array(trials * q);
-  const draws = new TrialDraw(tol, nominal); // runMonteCarlo's draw order and value model
   const streams = new BlockStreams(seed);
   for (let block = 0; block * blockSize < trials; block++) {
     const rng = streams.generatorFor(block);

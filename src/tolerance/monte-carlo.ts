@@ -212,8 +212,8 @@ export class TrialModel {
     const tol = resolveTolerances(circuit, spec);
     this.engine = compileAc(circuit, transfer);
     const e = this.engine;
-    this.slots = Int32Array.from(tol.inputs.map((i) => e.parameterIndex(i.parameter)));
-    this.draws = new TrialDraw(tol, Float64Array.from(this.slots, (s) => e.parameters[s]));
+    this.draws = TrialDraw.forEngine(tol, e);
+    this.slots = this.draws.slots;
     this.frequencyHz = frequencyHz;
     const m = frequencyHz.length;
     this.quantityCount = 2 * m;

@@ -10,6 +10,7 @@
 import type { RandomGenerator } from 'pure-rand/types/RandomGenerator';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { sampleDeviation } from './distributions';
+import type { CompiledAc } from '../analysis/index';
 import type { ResolvedTolerances } from './spec';
 
 export class TrialDraw {
@@ -17,10 +18,21 @@ export class TrialDraw {
   private readonly groupOf: Int32Array;
   private readonly groupDelta: Float64Array;
 
-  /** `nominal[i]` is the nominal value of `tol.inputs[i]`. */
-  constructor(
+  /**
+   * The draw for `tol`'s inputs with the engine's current values as nominal: `slots[i]` is the engine
+   * parameter of `tol.inputs[i]`, so `engine.setParameters(draw.slots, values)` applies a trial.
+   */
+  static forEngine(tol: ResolvedTolerances, engine: CompiledAc): TrialDraw {
+    const slots = Int32Array.from(tol.inputs, (i) => engine.parameterIndex(i.parameter));
+    return new TrialDraw(tol, slots, Float64Array.from(slots, (s) => engine.parameters[s]));
+  }
+
+  private constructor(
     private readonly tol: ResolvedTolerances,
-    private readonly nominal: Float64Array,
+    /** Engine parameter index of each input. */
+    readonly slots: Int32Array,
+    /** Nominal value of each input. */
+    readonly nominal: Float64Array,
   ) {
     this.tempco = Float64Array.from(tol.inputs.map((i) => i.tempcoPerK));
     this.groupOf = Int32Array.from(tol.inputs.map((i) => i.group));
